@@ -17,19 +17,26 @@
 
 #define EPS 1e-9
 
-typedef struct
+/* Everything a step's evaluation depends on besides the step itself. */
+struct _CwEvalState
 {
-  const CwCase   *kase;
-  const CwRules  *rules;
-  const CwCanal  *canal;
-  CwGeometry      geo;
-  double          s_o;
-  double          s_end;
-  CwPwl          *envelope;
-  double          glide_depth;
-  gboolean        glide_checked;
+  const CwCase       *kase;
+  const CwRules      *rules;
+  const CwCanal      *canal;
+  CwGeometry          geo;
+  double              s_o;
+  double              s_end;
+  CwPwl              *envelope;
+  double              glide_depth;
+  gboolean            glide_checked;
   const CwInstrument *previous;
-} Eval;
+  double              apical_size;
+  double              time;
+  guint               n_steps;
+  gboolean            has_stop;
+};
+
+typedef CwEvalState Eval;
 
 /* What one step does, before it is turned into a result. */
 typedef struct
@@ -41,9 +48,11 @@ typedef struct
   CwPwl              *file;          /* d(L - s) over the fluted part */
 } Placement;
 
-static void
-step_result_free (CwStepResult *step)
+void
+cw_step_result_free (CwStepResult *step)
 {
+  if (step == NULL)
+    return;
   g_ptr_array_unref (step->findings);
   g_array_unref (step->engaged);
   cw_pwl_free (step->envelope_after);
@@ -503,13 +512,26 @@ step_result_new (guint               index,
   return r;
 }
 
-static CwStepResult *
-evaluate_step (Eval               *ev,
-               const CwInstrument *inst,
-               double              depth,
-               guint               index)
+static void
+track_totals (CwEvalState        *ev,
+              const CwStepResult *r)
 {
-  CwStepResult *r = step_result_new (index, inst, depth);
+  ev->time += r->time;
+  ev->has_stop |= r->verdict == CW_LEVEL_STOP;
+  if (r->depth >= ev->canal->working_length - ev->rules->at_length_tolerance - EPS &&
+      !(r->instrument->tip <= ev->apical_size))
+    ev->apical_size = r->instrument->tip;
+}
+
+/* Evaluates one more step and carries the state past it.  The result holds
+ * the envelope after the step only when keep_envelope is set. */
+CwStepResult *
+cw_eval_state_apply (CwEvalState        *ev,
+                     const CwInstrument *inst,
+                     double              depth,
+                     gboolean            keep_envelope)
+{
+  CwStepResult *r = step_result_new (++ev->n_steps, inst, depth);
   Placement pl = { .instrument = inst, .depth = depth };
   double taper, onset;
   gboolean outside_table;
@@ -534,7 +556,9 @@ evaluate_step (Eval               *ev,
 
   /* Item 11: the flutes leave their shape in the envelope. */
   cw_pwl_raise (ev->envelope, pl.file, pl.flute_start, MIN (depth, ev->s_end));
-  r->envelope_after = cw_pwl_copy (ev->envelope);
+  if (keep_envelope)
+    r->envelope_after = cw_pwl_copy (ev->envelope);
+  track_totals (ev, r);
   if (inst->tip <= ev->rules->glide_path_tip_max + EPS)
     ev->glide_depth = isfinite (ev->glide_depth) ? MAX (ev->glide_depth, depth) : depth;
   ev->previous = inst;
@@ -542,41 +566,69 @@ evaluate_step (Eval               *ev,
   return r;
 }
 
-static void
-finish_canal (const Eval    *ev,
-              CwCanalResult *result)
+double
+cw_eval_state_apical_taper (const CwEvalState *ev)
 {
   double wl = ev->canal->working_length;
-  const CwPwl *p = cw_canal_result_envelope (result);
-  gboolean short_size, short_taper;
 
-  result->apical_size = NAN;
-  result->time = 0;
-  for (guint i = 0; i < result->steps->len; i++)
-    {
-      CwStepResult *r = cw_canal_result_get_step (result, i);
+  return (cw_pwl_eval (ev->envelope, wl - 3.0) - cw_pwl_eval (ev->envelope, wl)) / 3.0;
+}
 
-      result->time += r->time;
-      result->has_stop |= r->verdict == CW_LEVEL_STOP;
-      if (r->depth >= wl - ev->rules->at_length_tolerance - EPS &&
-          !(r->instrument->tip <= result->apical_size))
-        result->apical_size = r->instrument->tip;
-    }
-  result->apical_taper = (cw_pwl_eval (p, wl - 3.0) - cw_pwl_eval (p, wl)) / 3.0;
-  result->onset_diameter = ev->geo.n_curves > 0 ? cw_pwl_eval (p, ev->geo.onset[0]) : NAN;
+double
+cw_eval_state_apical_size (const CwEvalState *ev)
+{
+  return ev->apical_size;
+}
 
-  short_size = !(result->apical_size >= ev->kase->target_apical_size - EPS);
-  short_taper = !(result->apical_taper >= ev->kase->target_apical_taper - 1e-6);
-  if (short_size || short_taper)
-    {
-      CwFinding *f = cw_finding_new (CW_RULE_FINAL_SHAPE, CW_LEVEL_CAUTION,
-                                     result->apical_size, ev->kase->target_apical_size);
+double
+cw_eval_state_time (const CwEvalState *ev)
+{
+  return ev->time;
+}
 
-      f->other = result->apical_taper;
-      f->other_limit = ev->kase->target_apical_taper;
-      f->message = cw_finding_describe (f, TRUE);
-      g_ptr_array_add (result->findings, f);
-    }
+const CwPwl *
+cw_eval_state_envelope (const CwEvalState *ev)
+{
+  return ev->envelope;
+}
+
+const CwGeometry *
+cw_eval_state_geometry (const CwEvalState *ev)
+{
+  return &ev->geo;
+}
+
+/* The canal-level finding on the final shape, or NULL when it meets the
+ * case's targets. */
+CwFinding *
+cw_eval_state_final_shape (const CwEvalState *ev)
+{
+  double size = ev->apical_size, taper = cw_eval_state_apical_taper (ev);
+  CwFinding *f;
+
+  if (size >= ev->kase->target_apical_size - EPS &&
+      taper >= ev->kase->target_apical_taper - 1e-6)
+    return NULL;
+  f = cw_finding_new (CW_RULE_FINAL_SHAPE, CW_LEVEL_CAUTION, size, ev->kase->target_apical_size);
+  f->other = taper;
+  f->other_limit = ev->kase->target_apical_taper;
+  f->message = cw_finding_describe (f, TRUE);
+  return f;
+}
+
+static void
+finish_canal (const CwEvalState *ev,
+              CwCanalResult     *result)
+{
+  CwFinding *shape = cw_eval_state_final_shape (ev);
+
+  result->apical_size = ev->apical_size;
+  result->apical_taper = cw_eval_state_apical_taper (ev);
+  result->onset_diameter = ev->geo.n_curves > 0 ? cw_pwl_eval (ev->envelope, ev->geo.onset[0]) : NAN;
+  result->time = ev->time;
+  result->has_stop = ev->has_stop;
+  if (shape)
+    g_ptr_array_add (result->findings, shape);
   result->verdict = cw_findings_worst (result->findings);
   for (guint i = 0; i < result->steps->len; i++)
     result->verdict = MAX (result->verdict, cw_canal_result_get_step (result, i)->verdict);
@@ -593,25 +645,62 @@ envelope_end (const CwCanal *canal)
   return end;
 }
 
+CwEvalState *
+cw_eval_state_new (const CwCase  *kase,
+                   const CwCanal *canal)
+{
+  CwEvalState *ev;
+  g_autoptr(CwPwl) natural = NULL;
+
+  g_return_val_if_fail (kase != NULL && canal != NULL, NULL);
+
+  ev = g_new0 (CwEvalState, 1);
+  ev->kase = kase;
+  ev->rules = &kase->rules;
+  ev->canal = canal;
+  ev->glide_depth = NAN;
+  ev->apical_size = NAN;
+  cw_canal_get_geometry (canal, &ev->geo);
+  ev->s_o = canal->orifice_depth;
+  ev->s_end = envelope_end (canal);
+  ev->envelope = cw_canal_natural_diameter (canal, ev->s_end);
+  return ev;
+}
+
+CwEvalState *
+cw_eval_state_copy (const CwEvalState *ev)
+{
+  CwEvalState *copy = g_memdup2 (ev, sizeof *ev);
+
+  copy->envelope = cw_pwl_copy (ev->envelope);
+  return copy;
+}
+
+void
+cw_eval_state_free (CwEvalState *ev)
+{
+  if (ev == NULL)
+    return;
+  cw_pwl_free (ev->envelope);
+  g_free (ev);
+}
+
 CwCanalResult *
 cw_evaluate_canal (const CwCase  *kase,
                    const CwCanal *canal)
 {
+  g_autoptr(CwEvalState) ev = NULL;
   CwCanalResult *result;
-  Eval ev = { .kase = kase, .rules = &kase->rules, .canal = canal, .glide_depth = NAN };
 
   g_return_val_if_fail (kase != NULL && canal != NULL, NULL);
 
+  ev = cw_eval_state_new (kase, canal);
   result = g_new0 (CwCanalResult, 1);
   result->canal = canal;
   result->findings = g_ptr_array_new_with_free_func ((GDestroyNotify) cw_finding_free);
-  result->steps = g_ptr_array_new_with_free_func ((GDestroyNotify) step_result_free);
-  cw_canal_get_geometry (canal, &ev.geo);
-  result->geometry = ev.geo;
-  ev.s_o = canal->orifice_depth;
-  ev.s_end = envelope_end (canal);
-  result->natural = cw_canal_natural_diameter (canal, ev.s_end);
-  ev.envelope = cw_pwl_copy (result->natural);
+  result->steps = g_ptr_array_new_with_free_func ((GDestroyNotify) cw_step_result_free);
+  result->geometry = ev->geo;
+  result->natural = cw_pwl_copy (ev->envelope);
 
   for (guint i = 0; i < canal->sequence->len; i++)
     {
@@ -623,9 +712,8 @@ cw_evaluate_canal (const CwCase  *kase,
           g_critical ("Step %u names unknown instrument '%s'", i + 1, step->instrument_id);
           continue;
         }
-      g_ptr_array_add (result->steps, evaluate_step (&ev, inst, step->depth, i + 1));
+      g_ptr_array_add (result->steps, cw_eval_state_apply (ev, inst, step->depth, TRUE));
     }
-  finish_canal (&ev, result);
-  cw_pwl_free (ev.envelope);
+  finish_canal (ev, result);
   return result;
 }

@@ -38,7 +38,7 @@ typedef struct
   CwLevel             verdict;
   GPtrArray          *findings;       /* CwFinding */
   GArray             *engaged;        /* CwPoint as (start, end) intervals of E */
-  CwPwl              *envelope_after; /* P(s) after the step */
+  CwPwl              *envelope_after; /* P(s) after the step, or NULL */
 } CwStepResult;
 
 typedef struct
@@ -56,13 +56,35 @@ typedef struct
   gboolean        has_stop;
 } CwCanalResult;
 
+typedef struct _CwEvalState CwEvalState;
+
 CwCanalResult *cw_evaluate_canal        (const CwCase        *kase,
                                          const CwCanal       *canal);
+
+/* Step by step, for the planner and for live checks while a depth is
+ * dragged: the state before a step is all the next step depends on. */
+CwEvalState   *cw_eval_state_new          (const CwCase       *kase,
+                                           const CwCanal      *canal);
+CwEvalState   *cw_eval_state_copy         (const CwEvalState  *state);
+void           cw_eval_state_free         (CwEvalState        *state);
+CwStepResult  *cw_eval_state_apply        (CwEvalState        *state,
+                                           const CwInstrument *instrument,
+                                           double              depth,
+                                           gboolean            keep_envelope);
+const CwPwl   *cw_eval_state_envelope     (const CwEvalState  *state);
+const CwGeometry *cw_eval_state_geometry  (const CwEvalState  *state);
+double         cw_eval_state_apical_size  (const CwEvalState  *state);
+double         cw_eval_state_apical_taper (const CwEvalState  *state);
+double         cw_eval_state_time         (const CwEvalState  *state);
+CwFinding     *cw_eval_state_final_shape  (const CwEvalState  *state);
+void           cw_step_result_free        (CwStepResult       *step);
 void           cw_canal_result_free     (CwCanalResult       *result);
 CwStepResult  *cw_canal_result_get_step (const CwCanalResult *result,
                                          guint                index);
 const CwPwl   *cw_canal_result_envelope (const CwCanalResult *result);
 
 G_DEFINE_AUTOPTR_CLEANUP_FUNC (CwCanalResult, cw_canal_result_free)
+G_DEFINE_AUTOPTR_CLEANUP_FUNC (CwEvalState, cw_eval_state_free)
+G_DEFINE_AUTOPTR_CLEANUP_FUNC (CwStepResult, cw_step_result_free)
 
 G_END_DECLS
