@@ -88,12 +88,13 @@ num (Numbers *n,
   char *buf = n->bufs[n->next++ % G_N_ELEMENTS (n->bufs)];
   char fmt[8];
 
+  if (!n->c_locale)
+    {
+      g_snprintf (buf, G_ASCII_DTOSTR_BUF_SIZE, "%.*f", decimals, value);
+      return buf;
+    }
   g_snprintf (fmt, sizeof fmt, "%%.%df", decimals);
-  if (n->c_locale)
-    g_ascii_formatd (buf, G_ASCII_DTOSTR_BUF_SIZE, fmt, value);
-  else
-    g_snprintf (buf, G_ASCII_DTOSTR_BUF_SIZE, fmt, value);
-  return buf;
+  return g_ascii_formatd (buf, G_ASCII_DTOSTR_BUF_SIZE, fmt, value);
 }
 
 static char *

@@ -16,6 +16,23 @@
 
 static void write_node (GString *out, JsonNode *node, gboolean pretty, guint depth);
 
+static void
+shortest (char   *buf,
+          gsize   size,
+          double  value,
+          char    conversion)
+{
+  for (int digits = conversion == 'f' ? 0 : 1; digits <= 17; digits++)
+    {
+      char fmt[8];
+
+      g_snprintf (fmt, sizeof fmt, "%%.%d%c", digits, conversion);
+      g_ascii_formatd (buf, size, fmt, value);
+      if (g_ascii_strtod (buf, NULL) == value)
+        return;
+    }
+}
+
 void
 cw_json_append_number (GString *out,
                        double   value)
@@ -27,15 +44,12 @@ cw_json_append_number (GString *out,
       g_string_append (out, "null");
       return;
     }
-  for (int digits = 1; digits <= 17; digits++)
-    {
-      char fmt[8];
-
-      g_snprintf (fmt, sizeof fmt, "%%.%dg", digits);
-      g_ascii_formatd (buf, sizeof buf, fmt, value);
-      if (g_ascii_strtod (buf, NULL) == value)
-        break;
-    }
+  /* Plain decimals for the lengths, diameters and counts of a case; the
+   * exponent form only far outside them. */
+  if (fabs (value) >= 1e-5 && fabs (value) < 1e15)
+    shortest (buf, sizeof buf, value, 'f');
+  else
+    shortest (buf, sizeof buf, value, 'g');
   g_string_append (out, buf);
 }
 
