@@ -11,6 +11,7 @@
 #include <locale.h>
 #include <stdio.h>
 
+#include "cw-application.h"
 #include "cw-headless.h"
 
 int
@@ -28,6 +29,9 @@ main (int   argc,
   if (cw_headless_dispatch (argc, argv, &status))
     return status;
 
-  cw_headless_usage (stderr);
-  return argc > 1 ? 2 : 0;
+  {
+    g_autoptr(CwApplication) app = cw_application_new ();
+
+    return g_application_run (G_APPLICATION (app), argc, argv);
+  }
 }

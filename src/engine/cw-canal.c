@@ -5,9 +5,12 @@
  */
 #define G_LOG_DOMAIN "cw-canal"
 
+#include <glib/gi18n-lib.h>
 #include <math.h>
+#include <stdarg.h>
 
 #include "cw-canal.h"
+#include "cw-error.h"
 
 void
 cw_step_clear (CwStep *step)
@@ -245,4 +248,52 @@ cw_canal_natural_diameter (const CwCanal *canal,
   if (s_end > cw_pwl_get_points (pwl)[cw_pwl_get_n_points (pwl) - 1].s)
     cw_pwl_append (pwl, s_end, cw_pwl_get_points (pwl)[cw_pwl_get_n_points (pwl) - 1].v);
   return pwl;
+}
+
+static gboolean
+fail (GError     **error,
+      const char  *format,
+      ...) G_GNUC_PRINTF (2, 3);
+
+static gboolean
+fail (GError     **error,
+      const char  *format,
+      ...)
+{
+  va_list args;
+  g_autofree char *message = NULL;
+
+  va_start (args, format);
+  message = g_strdup_vprintf (format, args);
+  va_end (args);
+  g_set_error_literal (error, CW_ERROR, CW_ERROR_INVALID, message);
+  return FALSE;
+}
+
+/* The order the zones must keep: orifice < onset < curve end <= WL, a second
+ * curve after the first; the same rules as the case loader's. */
+gboolean
+cw_canal_validate (const CwCanal  *canal,
+                   GError        **error)
+{
+  CwGeometry geo;
+
+  if (!(canal->working_length > 0 && canal->working_length <= 40))
+    return fail (error, _("The working length must be over 0 and at most 40 mm."));
+  if (!(canal->orifice_depth > 0 && canal->orifice_depth < canal->working_length))
+    return fail (error, _("The orifice must lie between the reference point and the working length."));
+  cw_canal_get_geometry (canal, &geo);
+  for (guint i = 0; i < geo.n_curves; i++)
+    {
+      if (!(geo.onset[i] > canal->orifice_depth))
+        return fail (error, _("Curve %u must start below the orifice (%.1f mm)."), i + 1, canal->orifice_depth);
+      if (!(geo.radius[i] > 0 && geo.phi[i] > 0))
+        return fail (error, _("Curve %u needs an angle and a radius over 0."), i + 1);
+      if (geo.end[i] > canal->working_length + 1e-9)
+        return fail (error, _("Curve %u ends at %.1f mm, past the working length of %.1f mm."),
+                     i + 1, geo.end[i], canal->working_length);
+      if (i > 0 && geo.onset[i] < geo.end[i - 1] - 1e-9)
+        return fail (error, _("Curve 2 must start where curve 1 ends (%.1f mm) or below."), geo.end[i - 1]);
+    }
+  return TRUE;
 }

@@ -88,6 +88,9 @@ double    cw_schneider_to_turning    (double          schneider_angle);
 double    cw_curve_chord_angle       (double          phi,
                                       double          radius);
 
+gboolean  cw_canal_validate          (const CwCanal  *canal,
+                                      GError        **error);
+
 void      cw_step_clear              (CwStep         *step);
 void      cw_curve_clear             (CwCurve        *curve);
 

@@ -1,0 +1,376 @@
+/* cw-canal-view.c
+ *
+ * The renderer lays the canal out in the widget; zoom and pan are a
+ * transform on top of that layout, so hit tests undo the transform first.
+ *
+ * Copyright 2026 The Canalwright authors
+ * SPDX-License-Identifier: GPL-3.0-or-later
+ */
+#define G_LOG_DOMAIN "cw-canal-view"
+
+#include "config.h"
+
+#include <glib/gi18n.h>
+#include <math.h>
+#include <string.h>
+
+#include "cw-canal-layout.h"
+#include "cw-canal-renderer.h"
+#include "cw-canal-view.h"
+#include "cw-inspector.h"
+
+#define TIP_GRAB_RADIUS 14.0
+#define DEPTH_SNAP 0.5
+
+struct _CwCanalView
+{
+  GtkWidget      parent_instance;
+
+  CwDocument    *document;
+  double         zoom;
+  double         pan_x, pan_y;
+
+  /* a drag in progress: the tip's depth, or the view */
+  gboolean       dragging_tip;
+  double         drag_pan_x, drag_pan_y;
+  double         drag_start_depth;
+};
+
+G_DEFINE_FINAL_TYPE (CwCanalView, cw_canal_view, GTK_TYPE_WIDGET)
+
+static gboolean
+prefers_dark (GtkWidget *widget)
+{
+  GtkSettings *settings = gtk_widget_get_settings (widget);
+  gboolean dark = FALSE;
+
+  g_object_get (settings, "gtk-application-prefer-dark-theme", &dark, NULL);
+  return dark;
+}
+
+static void
+view_style (CwCanalView   *self,
+            CwRenderStyle *style)
+{
+  cw_render_style_init (style, prefers_dark (GTK_WIDGET (self)) ? CW_RENDER_DARK : CW_RENDER_LIGHT, 1.3);
+}
+
+static CwCanalLayout *
+make_layout (CwCanalView *self)
+{
+  const CwCanalResult *result = cw_document_get_result (self->document);
+  cairo_rectangle_t area = { 0, 0, gtk_widget_get_width (GTK_WIDGET (self)),
+                             gtk_widget_get_height (GTK_WIDGET (self)) };
+  CwRenderStyle style;
+
+  if (result == NULL || area.width < 10 || area.height < 10)
+    return NULL;
+  view_style (self, &style);
+  return cw_canal_layout_new (result->canal, result, &style, &area, CW_CANAL_LAYOUT_FULL);
+}
+
+/* The zoom keeps the middle of the widget in place. */
+static void
+view_transform (CwCanalView    *self,
+                cairo_matrix_t *m)
+{
+  double cx = gtk_widget_get_width (GTK_WIDGET (self)) / 2.0;
+  double cy = gtk_widget_get_height (GTK_WIDGET (self)) / 2.0;
+
+  cairo_matrix_init_translate (m, cx + self->pan_x, cy + self->pan_y);
+  cairo_matrix_scale (m, self->zoom, self->zoom);
+  cairo_matrix_translate (m, -cx, -cy);
+}
+
+static void
+cw_canal_view_snapshot (GtkWidget   *widget,
+                        GtkSnapshot *snapshot)
+{
+  CwCanalView *self = CW_CANAL_VIEW (widget);
+  g_autoptr(CwCanalLayout) layout = NULL;
+  graphene_rect_t bounds;
+  CwRenderStyle style;
+  cairo_matrix_t m;
+  cairo_t *cr;
+
+  if (self->document == NULL || (layout = make_layout (self)) == NULL)
+    return;
+  view_style (self, &style);
+  graphene_rect_init (&bounds, 0, 0, gtk_widget_get_width (widget), gtk_widget_get_height (widget));
+  cr = gtk_snapshot_append_cairo (snapshot, &bounds);
+  cw_render_set_rgb (cr, &cw_render_style_palette (&style)->background);
+  cairo_paint (cr);
+  view_transform (self, &m);
+  cairo_transform (cr, &m);
+  cw_canal_draw (cr, layout, cw_document_get_result (self->document),
+                 cw_document_get_step_index (self->document));
+  cairo_destroy (cr);
+}
+
+static void
+to_widget (CwCanalView *self,
+           double      *x,
+           double      *y)
+{
+  cairo_matrix_t m;
+
+  view_transform (self, &m);
+  cairo_matrix_transform_point (&m, x, y);
+}
+
+static void
+from_widget (CwCanalView *self,
+             double      *x,
+             double      *y)
+{
+  cairo_matrix_t m;
+
+  view_transform (self, &m);
+  cairo_matrix_invert (&m);
+  cairo_matrix_transform_point (&m, x, y);
+}
+
+/* Where the centreline is at a depth, in widget coordinates; the GUI tests
+ * read it to aim their drags. */
+gboolean
+cw_canal_view_depth_point (CwCanalView *self,
+                           double       depth,
+                           double      *x,
+                           double      *y)
+{
+  g_autoptr(CwCanalLayout) layout = make_layout (self);
+
+  if (layout == NULL)
+    return FALSE;
+  cw_canal_layout_to_device (layout, depth, 0, x, y);
+  to_widget (self, x, y);
+  return TRUE;
+}
+
+static double
+depth_at (CwCanalView *self,
+          double       x,
+          double       y)
+{
+  g_autoptr(CwCanalLayout) layout = make_layout (self);
+  double offset, distance;
+
+  if (layout == NULL)
+    return NAN;
+  from_widget (self, &x, &y);
+  return cw_canal_layout_from_device (layout, x, y, &offset, &distance);
+}
+
+static const CwStep *
+selected_step (CwCanalView *self)
+{
+  const CwCanal *canal = cw_document_get_canal (self->document);
+  int step = cw_document_get_step_index (self->document);
+
+  return canal && step >= 0 ? cw_canal_get_step (canal, step) : NULL;
+}
+
+static void
+drag_begin (GtkGestureDrag *gesture,
+            double          x,
+            double          y,
+            CwCanalView    *self)
+{
+  const CwStep *step = selected_step (self);
+  double tx, ty;
+
+  gtk_widget_grab_focus (GTK_WIDGET (self));
+  self->dragging_tip = FALSE;
+  self->drag_pan_x = self->pan_x;
+  self->drag_pan_y = self->pan_y;
+  if (step == NULL || !cw_canal_view_depth_point (self, step->depth, &tx, &ty))
+    return;
+  if (hypot (tx - x, ty - y) <= TIP_GRAB_RADIUS)
+    {
+      self->dragging_tip = TRUE;
+      self->drag_start_depth = step->depth;
+      cw_document_begin_edit (self->document, _("Change Depth"));
+    }
+}
+
+static void
+drag_update (GtkGestureDrag *gesture,
+             double          dx,
+             double          dy,
+             CwCanalView    *self)
+{
+  const CwStep *step = selected_step (self);
+  double x, y, depth;
+
+  if (!self->dragging_tip)
+    {
+      self->pan_x = self->drag_pan_x + dx;
+      self->pan_y = self->drag_pan_y + dy;
+      gtk_widget_queue_draw (GTK_WIDGET (self));
+      return;
+    }
+  gtk_gesture_drag_get_start_point (gesture, &x, &y);
+  depth = depth_at (self, x + dx, y + dy);
+  if (!isfinite (depth))
+    return;
+  depth = round (depth / DEPTH_SNAP) * DEPTH_SNAP;
+  if (step && depth != step->depth)
+    cw_document_set_step_depth (self->document, cw_document_get_step_index (self->document), depth);
+}
+
+static void
+drag_end (GtkGestureDrag *gesture,
+          double          dx,
+          double          dy,
+          CwCanalView    *self)
+{
+  const CwStep *step = selected_step (self);
+
+  if (!self->dragging_tip)
+    return;
+  self->dragging_tip = FALSE;
+  if (step && step->depth != self->drag_start_depth)
+    cw_document_end_edit (self->document);
+  else
+    cw_document_cancel_edit (self->document);
+}
+
+static gboolean
+on_scroll (GtkEventControllerScroll *scroll,
+           double                    dx,
+           double                    dy,
+           CwCanalView              *self)
+{
+  GdkModifierType mods = gtk_event_controller_get_current_event_state (GTK_EVENT_CONTROLLER (scroll));
+
+  if (mods & GDK_CONTROL_MASK)
+    cw_canal_view_zoom (self, dy < 0 ? 1.1 : 1 / 1.1);
+  else
+    {
+      self->pan_x -= dx * 30;
+      self->pan_y -= dy * 30;
+      gtk_widget_queue_draw (GTK_WIDGET (self));
+    }
+  return TRUE;
+}
+
+static gboolean
+on_drop (GtkDropTarget *target,
+         const GValue  *value,
+         double         x,
+         double         y,
+         CwCanalView   *self)
+{
+  const char *data = g_value_get_string (value);
+  int step = cw_document_get_step_index (self->document);
+
+  if (data == NULL || !g_str_has_prefix (data, "instrument:"))
+    return FALSE;
+  cw_document_insert_step (self->document, data + strlen ("instrument:"), step < 0 ? -1 : step + 1);
+  return TRUE;
+}
+
+void
+cw_canal_view_zoom (CwCanalView *self,
+                    double       factor)
+{
+  self->zoom = CLAMP (self->zoom * factor, 0.5, 12.0);
+  gtk_widget_queue_draw (GTK_WIDGET (self));
+}
+
+void
+cw_canal_view_reset_view (CwCanalView *self)
+{
+  self->zoom = 1.0;
+  self->pan_x = self->pan_y = 0;
+  gtk_widget_queue_draw (GTK_WIDGET (self));
+}
+
+/* Screen readers get the selected step's figures in a sentence. */
+static void
+update_description (CwCanalView *self)
+{
+  const CwCanalResult *result = cw_document_get_result (self->document);
+  int step = cw_document_get_step_index (self->document);
+  g_autofree char *text = NULL;
+
+  if (result && step >= 0 && step < (int) result->steps->len)
+    text = cw_step_summary (cw_canal_result_get_step (result, step));
+  else
+    text = g_strdup (_("No step selected."));
+  gtk_accessible_update_property (GTK_ACCESSIBLE (self), GTK_ACCESSIBLE_PROPERTY_DESCRIPTION, text, -1);
+}
+
+static void
+document_changed (CwCanalView *self)
+{
+  update_description (self);
+  gtk_widget_queue_draw (GTK_WIDGET (self));
+}
+
+void
+cw_canal_view_set_document (CwCanalView *self,
+                            CwDocument  *document)
+{
+  g_return_if_fail (CW_IS_CANAL_VIEW (self));
+
+  g_set_object (&self->document, document);
+  g_signal_connect_object (document, "changed", G_CALLBACK (document_changed), self, G_CONNECT_SWAPPED);
+  g_signal_connect_object (document, "notify::step-index", G_CALLBACK (document_changed), self, G_CONNECT_SWAPPED);
+  g_signal_connect_object (document, "notify::canal-index", G_CALLBACK (cw_canal_view_reset_view), self, G_CONNECT_SWAPPED);
+  document_changed (self);
+}
+
+static void
+cw_canal_view_dispose (GObject *object)
+{
+  CwCanalView *self = CW_CANAL_VIEW (object);
+
+  g_clear_object (&self->document);
+  G_OBJECT_CLASS (cw_canal_view_parent_class)->dispose (object);
+}
+
+static void
+cw_canal_view_class_init (CwCanalViewClass *klass)
+{
+  GObjectClass *object_class = G_OBJECT_CLASS (klass);
+  GtkWidgetClass *widget_class = GTK_WIDGET_CLASS (klass);
+
+  object_class->dispose = cw_canal_view_dispose;
+  widget_class->snapshot = cw_canal_view_snapshot;
+  gtk_widget_class_set_css_name (widget_class, "canalview");
+  gtk_widget_class_set_accessible_role (widget_class, GTK_ACCESSIBLE_ROLE_IMG);
+
+  gtk_widget_class_add_binding_action (widget_class, GDK_KEY_plus, 0, "win.deeper", NULL);
+  gtk_widget_class_add_binding_action (widget_class, GDK_KEY_equal, 0, "win.deeper", NULL);
+  gtk_widget_class_add_binding_action (widget_class, GDK_KEY_KP_Add, 0, "win.deeper", NULL);
+  gtk_widget_class_add_binding_action (widget_class, GDK_KEY_Down, 0, "win.deeper", NULL);
+  gtk_widget_class_add_binding_action (widget_class, GDK_KEY_minus, 0, "win.shallower", NULL);
+  gtk_widget_class_add_binding_action (widget_class, GDK_KEY_KP_Subtract, 0, "win.shallower", NULL);
+  gtk_widget_class_add_binding_action (widget_class, GDK_KEY_Up, 0, "win.shallower", NULL);
+  gtk_widget_class_add_binding_action (widget_class, GDK_KEY_Right, 0, "win.next-step", NULL);
+  gtk_widget_class_add_binding_action (widget_class, GDK_KEY_Left, 0, "win.previous-step", NULL);
+  gtk_widget_class_add_binding_action (widget_class, GDK_KEY_Delete, 0, "win.remove-step", NULL);
+}
+
+static void
+cw_canal_view_init (CwCanalView *self)
+{
+  GtkGesture *drag = gtk_gesture_drag_new ();
+  GtkEventController *scroll = gtk_event_controller_scroll_new (GTK_EVENT_CONTROLLER_SCROLL_BOTH_AXES);
+  GtkDropTarget *target = gtk_drop_target_new (G_TYPE_STRING, GDK_ACTION_COPY);
+
+  self->zoom = 1.0;
+  gtk_widget_set_focusable (GTK_WIDGET (self), TRUE);
+  gtk_widget_set_focus_on_click (GTK_WIDGET (self), TRUE);
+  g_signal_connect (drag, "drag-begin", G_CALLBACK (drag_begin), self);
+  g_signal_connect (drag, "drag-update", G_CALLBACK (drag_update), self);
+  g_signal_connect (drag, "drag-end", G_CALLBACK (drag_end), self);
+  gtk_widget_add_controller (GTK_WIDGET (self), GTK_EVENT_CONTROLLER (drag));
+  g_signal_connect (scroll, "scroll", G_CALLBACK (on_scroll), self);
+  gtk_widget_add_controller (GTK_WIDGET (self), scroll);
+  g_signal_connect (target, "drop", G_CALLBACK (on_drop), self);
+  gtk_widget_add_controller (GTK_WIDGET (self), GTK_EVENT_CONTROLLER (target));
+  gtk_accessible_update_property (GTK_ACCESSIBLE (self), GTK_ACCESSIBLE_PROPERTY_LABEL,
+                                  _("Canal drawing with the selected step's file"), -1);
+}
