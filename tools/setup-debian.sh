@@ -8,6 +8,7 @@ packages=(
   libglib2.0-dev libgtk-4-dev libjson-glib-dev libgsl-dev
   xvfb xauth xdotool imagemagick poppler-utils
   appstream desktop-file-utils valgrind clang locales python3
+  libxml2-utils librsvg2-common libgtk-4-bin shared-mime-info libglib2.0-bin
 )
 
 sudo=""

@@ -12,6 +12,7 @@
 #include "cw-application.h"
 #include "cw-autosave.h"
 #include "cw-cautions.h"
+#include "cw-help-window.h"
 #include "cw-window.h"
 
 struct _CwApplication
@@ -105,8 +106,11 @@ cw_application_open (GApplication  *app,
           continue;
         }
       last = GTK_WINDOW (new_window (self, document));
-      gtk_recent_manager_add_item (gtk_recent_manager_get_default (),
-                                   g_file_get_uri (files[i]));
+      {
+        g_autofree char *uri = g_file_get_uri (files[i]);
+
+        gtk_recent_manager_add_item (gtk_recent_manager_get_default (), uri);
+      }
     }
   if (last == NULL)
     cw_application_activate (app);
@@ -197,6 +201,26 @@ open_activated (GSimpleAction *action,
 }
 
 static void
+open_recent_activated (GSimpleAction *action,
+                       GVariant      *param,
+                       gpointer       user_data)
+{
+  g_autoptr(GFile) file = g_file_new_for_uri (g_variant_get_string (param, NULL));
+
+  g_application_open (G_APPLICATION (user_data), &file, 1, "");
+}
+
+static void
+help_activated (GSimpleAction *action,
+                GVariant      *param,
+                gpointer       user_data)
+{
+  GtkWindow *parent = gtk_application_get_active_window (GTK_APPLICATION (user_data));
+
+  gtk_window_present (GTK_WINDOW (cw_help_window_new (parent)));
+}
+
+static void
 cautions_activated (GSimpleAction *action,
                     GVariant      *param,
                     gpointer       user_data)
@@ -212,6 +236,8 @@ static const GActionEntry app_actions[] = {
   { "quit", quit_activated },
   { "about", about_activated },
   { "cautions", cautions_activated },
+  { "open-recent", open_recent_activated, "s" },
+  { "help", help_activated },
 };
 
 static void
@@ -221,6 +247,7 @@ set_accels (GtkApplication *app)
     { "app.new", { "<Control>n", NULL } },
     { "app.open", { "<Control>o", NULL } },
     { "app.quit", { "<Control>q", NULL } },
+    { "app.help", { "F1", NULL } },
     { "win.save", { "<Control>s", NULL } },
     { "win.save-as", { "<Shift><Control>s", NULL } },
     { "win.close", { "<Control>w", NULL } },
@@ -265,16 +292,14 @@ static void
 cw_application_startup (GApplication *app)
 {
   CwApplication *self = CW_APPLICATION (app);
-  g_autoptr(GtkCssProvider) css = gtk_css_provider_new ();
 
+  /* GtkApplication loads style.css and gtk/help-overlay.ui from the
+   * resource base path by itself. */
   G_APPLICATION_CLASS (cw_application_parent_class)->startup (app);
 
   self->settings = load_settings ();
   g_action_map_add_action_entries (G_ACTION_MAP (app), app_actions, G_N_ELEMENTS (app_actions), app);
   set_accels (GTK_APPLICATION (app));
-  gtk_css_provider_load_from_resource (css, "/org/canalwright/Canalwright/style.css");
-  gtk_style_context_add_provider_for_display (gdk_display_get_default (), GTK_STYLE_PROVIDER (css),
-                                              GTK_STYLE_PROVIDER_PRIORITY_APPLICATION);
 }
 
 static void

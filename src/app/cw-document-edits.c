@@ -11,7 +11,6 @@
 
 #include <glib/gi18n.h>
 #include <math.h>
-#include <string.h>
 
 #include "cw-document.h"
 
@@ -115,17 +114,16 @@ cw_document_move_step (CwDocument *self,
   const CwCanal *canal = cw_document_get_canal (self);
   CwCanal *target;
   CwStep step;
+  const CwStep *src;
 
   g_return_if_fail (canal != NULL);
   if (from >= canal->sequence->len || to >= canal->sequence->len || from == to)
     return;
   target = edit_canal (self, _("Move Step"));
-  step = g_array_index (target->sequence, CwStep, from);
-  /* Take the step out without clearing it: its strings move with it. */
-  memmove (&g_array_index (target->sequence, CwStep, from),
-           &g_array_index (target->sequence, CwStep, from + 1),
-           (target->sequence->len - from - 1) * sizeof (CwStep));
-  g_array_set_size (target->sequence, target->sequence->len - 1);
+  src = &g_array_index (target->sequence, CwStep, from);
+  /* A copy moves; removing the original clears its own strings. */
+  step = (CwStep) { g_strdup (src->instrument_id), src->depth, g_strdup (src->note), g_strdup (src->extra_json) };
+  g_array_remove_index (target->sequence, from);
   g_array_insert_val (target->sequence, to, step);
   cw_document_end_edit (self);
   cw_document_set_step_index (self, (int) to);

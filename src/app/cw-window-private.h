@@ -32,6 +32,7 @@ struct _CwWindow
   CwCanalEditor        *canal_editor;
   CwSequenceStrip      *strip;
   GtkStack             *side_stack;
+  GMenu                *recent_menu;
 };
 
 void _cw_window_install_actions (GtkWidgetClass *widget_class);

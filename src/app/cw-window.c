@@ -206,6 +206,37 @@ cw_window_close_request (GtkWindow *window)
   return TRUE;
 }
 
+/* Up to eight recent cases, newest first, in the primary menu. */
+static void
+fill_recent_menu (CwWindow *self)
+{
+  GtkRecentManager *manager = gtk_recent_manager_get_default ();
+  GList *items = gtk_recent_manager_get_items (manager);
+  guint n = 0;
+
+  g_menu_remove_all (self->recent_menu);
+  for (GList *l = items; l && n < 8; l = l->next)
+    {
+      GtkRecentInfo *info = l->data;
+      const char *uri = gtk_recent_info_get_uri (info);
+      g_autoptr(GMenuItem) item = NULL;
+
+      if (!g_str_has_suffix (uri, ".cwcase") || !gtk_recent_info_exists (info))
+        continue;
+      item = g_menu_item_new (gtk_recent_info_get_display_name (info), NULL);
+      g_menu_item_set_action_and_target (item, "app.open-recent", "s", uri);
+      g_menu_append_item (self->recent_menu, item);
+      n++;
+    }
+  if (n == 0)
+    {
+      g_autoptr(GMenuItem) none = g_menu_item_new (_("No recent cases"), "win.none");
+
+      g_menu_append_item (self->recent_menu, none);
+    }
+  g_list_free_full (items, (GDestroyNotify) gtk_recent_info_unref);
+}
+
 static void
 cw_window_constructed (GObject *object)
 {
@@ -223,6 +254,9 @@ cw_window_constructed (GObject *object)
     }
   if (self->document == NULL)
     set_document (self, NULL);
+  fill_recent_menu (self);
+  g_signal_connect_object (gtk_recent_manager_get_default (), "changed",
+                           G_CALLBACK (fill_recent_menu), self, G_CONNECT_SWAPPED);
 }
 
 static void
@@ -307,6 +341,7 @@ cw_window_class_init (CwWindowClass *klass)
   gtk_widget_class_bind_template_child (widget_class, CwWindow, canal_editor);
   gtk_widget_class_bind_template_child (widget_class, CwWindow, strip);
   gtk_widget_class_bind_template_child (widget_class, CwWindow, side_stack);
+  gtk_widget_class_bind_template_child (widget_class, CwWindow, recent_menu);
 
   _cw_window_install_actions (widget_class);
 }

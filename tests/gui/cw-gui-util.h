@@ -1,0 +1,33 @@
+/* cw-gui-util.h: driving a real window under Xvfb with xdotool
+ *
+ * Copyright 2026 The Canalwright authors
+ * SPDX-License-Identifier: GPL-3.0-or-later
+ */
+#pragma once
+
+#include <gtk/gtk.h>
+
+G_BEGIN_DECLS
+
+void     cw_gui_init          (int        *argc,
+                               char     ***argv);
+void     cw_gui_settle        (guint       ms);
+gboolean cw_gui_run           (const char *script);
+void     cw_gui_screen_point  (GtkWidget  *widget,
+                               double      x,
+                               double      y,
+                               int        *sx,
+                               int        *sy);
+void     cw_gui_center        (GtkWidget  *widget,
+                               int        *sx,
+                               int        *sy);
+void     cw_gui_drag          (int         x0,
+                               int         y0,
+                               int         x1,
+                               int         y1);
+void     cw_gui_click         (int         x,
+                               int         y);
+void     cw_gui_key           (const char *keys);
+char    *cw_gui_screenshot    (const char *name);
+
+G_END_DECLS
