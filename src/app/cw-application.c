@@ -86,6 +86,30 @@ cw_application_activate (GApplication *app)
   cw_autosave_offer_recovery (window);
 }
 
+/* A file that does not load leaves every window as it was and says why. */
+static void
+show_open_error (CwApplication *self,
+                 GFile         *file,
+                 const GError  *error)
+{
+  GtkWindow *parent = gtk_application_get_active_window (GTK_APPLICATION (self));
+  g_autofree char *name = g_file_get_basename (file);
+  GtkWidget *dialog;
+
+  if (parent == NULL)
+    {
+      g_autoptr(CwDocument) document = cw_document_new ();
+
+      parent = GTK_WINDOW (new_window (self, document));
+    }
+  dialog = gtk_message_dialog_new (parent, GTK_DIALOG_MODAL | GTK_DIALOG_DESTROY_WITH_PARENT,
+                                   GTK_MESSAGE_ERROR, GTK_BUTTONS_CLOSE,
+                                   _("“%s” could not be opened"), name);
+  gtk_message_dialog_format_secondary_text (GTK_MESSAGE_DIALOG (dialog), "%s", error->message);
+  g_signal_connect (dialog, "response", G_CALLBACK (gtk_window_destroy), NULL);
+  gtk_window_present (GTK_WINDOW (dialog));
+}
+
 static void
 cw_application_open (GApplication  *app,
                      GFile        **files,
@@ -103,6 +127,8 @@ cw_application_open (GApplication  *app,
       if (document == NULL)
         {
           g_printerr ("canalwright: %s\n", error->message);
+          show_open_error (self, files[i], error);
+          last = gtk_application_get_active_window (GTK_APPLICATION (app));
           continue;
         }
       last = GTK_WINDOW (new_window (self, document));

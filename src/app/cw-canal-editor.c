@@ -295,8 +295,8 @@ build_form (CwCanalEditor *self)
   self->title = add_entry (self, _("_Title"), G_CALLBACK (apply));
   self->notation = GTK_DROP_DOWN (gtk_drop_down_new_from_strings (notations));
   g_signal_connect_swapped (self->notation, "notify::selected", G_CALLBACK (notation_changed), self);
-  label_cell (self, _("Tooth _notation"), GTK_WIDGET (self->notation));
-  self->tooth = add_entry (self, _("T_ooth"), G_CALLBACK (apply_tooth));
+  label_cell (self, _("Tooth n_umbering"), GTK_WIDGET (self->notation));
+  self->tooth = add_entry (self, _("Too_th"), G_CALLBACK (apply_tooth));
   add_spin (self, FIELD_TARGET_SIZE, _("Target apical size"), 6, 140, 5, 0);
   add_spin (self, FIELD_TARGET_TAPER, _("Target apical taper"), 0.01, 0.12, 0.01, 2);
   section (self, _("Canal"));

@@ -18,14 +18,27 @@ cw_gui_init (int    *argc,
       exit (77);
     }
   gtk_test_init (argc, argv, NULL);
-  {
-    /* What GtkApplication would load from the resource base path. */
-    g_autoptr(GtkCssProvider) css = gtk_css_provider_new ();
+}
 
-    gtk_css_provider_load_from_resource (css, "/org/canalwright/Canalwright/style.css");
-    gtk_style_context_add_provider_for_display (gdk_display_get_default (), GTK_STYLE_PROVIDER (css),
-                                                GTK_STYLE_PROVIDER_PRIORITY_APPLICATION);
-  }
+/* The real application, registered so that its startup installs the
+ * accelerators, the app actions and the styles; non-unique, so that
+ * nothing on a session bus is needed. */
+CwApplication *
+cw_gui_app (void)
+{
+  static CwApplication *app;
+  g_autoptr(GError) error = NULL;
+
+  if (app)
+    return app;
+  app = g_object_new (CW_TYPE_APPLICATION,
+                      "application-id", CW_APPLICATION_ID,
+                      "flags", G_APPLICATION_NON_UNIQUE,
+                      "resource-base-path", "/org/canalwright/Canalwright",
+                      NULL);
+  g_assert_true (g_application_register (G_APPLICATION (app), NULL, &error));
+  g_assert_no_error (error);
+  return app;
 }
 
 /* Lets the main loop run for ms milliseconds: layout, drawing, input. */

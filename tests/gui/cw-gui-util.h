@@ -7,10 +7,13 @@
 
 #include <gtk/gtk.h>
 
+#include "cw-application.h"
+
 G_BEGIN_DECLS
 
 void     cw_gui_init          (int        *argc,
                                char     ***argv);
+CwApplication *cw_gui_app     (void);
 void     cw_gui_settle        (guint       ms);
 gboolean cw_gui_run           (const char *script);
 void     cw_gui_screen_point  (GtkWidget  *widget,

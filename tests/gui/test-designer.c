@@ -41,7 +41,7 @@ fixture_setup (Fixture       *f,
   file = g_file_new_for_path (f->path);
   f->document = cw_document_open (file, &error);
   g_assert_no_error (error);
-  f->window = cw_window_new (NULL, f->document);
+  f->window = cw_window_new (cw_gui_app (), f->document);
   gtk_window_set_default_size (GTK_WINDOW (f->window), 1280, 800);
   gtk_window_present (GTK_WINDOW (f->window));
   cw_gui_settle (800);
@@ -266,6 +266,50 @@ test_keyboard_equivalents (Fixture       *f,
   g_assert_cmpuint (canal (f)->sequence->len, ==, n);
 }
 
+/* The whole workflow with no pointer: pick files, order them, set depths,
+ * add and edit a canal, save; every input is a key press. */
+static void
+test_keyboard_only_workflow (Fixture       *f,
+                             gconstpointer  data)
+{
+  g_autoptr(CwCase) saved = NULL;
+  const CwCanal *second;
+  guint n = canal (f)->sequence->len;
+
+  cw_gui_key ("ctrl+1 Down Down Return");
+  g_assert_cmpuint (canal (f)->sequence->len, ==, n + 1);
+  cw_gui_key ("ctrl+2 minus minus alt+Left");
+  g_assert_cmpuint (canal (f)->sequence->len, ==, n + 1);
+  cw_gui_key ("Delete");
+  g_assert_cmpuint (canal (f)->sequence->len, ==, n);
+  cw_gui_key ("ctrl+shift+n");
+  g_assert_cmpuint (cw_document_get_case (f->document)->canals->len, ==, 2);
+  g_assert_cmpuint (cw_document_get_canal_index (f->document), ==, 1);
+  /* A new canal: its first instrument goes in from the shelf. */
+  cw_gui_key ("ctrl+1 Return");
+  g_assert_cmpuint (canal (f)->sequence->len, ==, 1);
+  /* The canal editor: Alt+N goes to the canal's name (its mnemonic); a
+   * new name and Enter apply it. */
+  cw_gui_key ("ctrl+4");
+  {
+    GtkWidget *focus = gtk_root_get_focus (GTK_ROOT (f->window));
+
+    g_assert_nonnull (focus);
+    g_assert_true (gtk_widget_is_ancestor (focus, GTK_WIDGET (f->window->canal_editor)));
+  }
+  cw_gui_key ("alt+n ctrl+a B U C C A L Return");
+  second = g_ptr_array_index (cw_document_get_case (f->document)->canals, 1);
+  g_assert_cmpstr (second->name, ==, "BUCCAL");
+  cw_gui_key ("ctrl+Page_Up");
+  g_assert_cmpuint (cw_document_get_canal_index (f->document), ==, 0);
+  cw_gui_key ("ctrl+s");
+  g_assert_false (cw_document_get_modified (f->document));
+  saved = cw_case_load (f->path, NULL);
+  g_assert_nonnull (saved);
+  g_assert_cmpuint (saved->canals->len, ==, 2);
+  g_assert_nonnull (cw_case_find_canal (saved, "BUCCAL"));
+}
+
 /* Save, load again: the same case. */
 static void
 test_save_reload (Fixture       *f,
@@ -351,6 +395,7 @@ main (int   argc,
   ADD ("/gui/designer/drag-off-removes", test_drag_off, NULL);
   ADD ("/gui/designer/drag-depth", test_drag_depth, NULL);
   ADD ("/gui/designer/keyboard", test_keyboard_equivalents, NULL);
+  ADD ("/gui/designer/keyboard-only-workflow", test_keyboard_only_workflow, NULL);
   ADD ("/gui/designer/save-reload", test_save_reload, NULL);
   ADD ("/gui/designer/undo-to-original-bytes", test_undo_to_original_bytes, NULL);
   ADD ("/gui/designer/screenshot", test_screenshot, NULL);
