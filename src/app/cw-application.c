@@ -277,6 +277,8 @@ set_accels (GtkApplication *app)
     { "win.save", { "<Control>s", NULL } },
     { "win.save-as", { "<Shift><Control>s", NULL } },
     { "win.close", { "<Control>w", NULL } },
+    { "win.export", { "<Control>e", NULL } },
+    { "win.print", { "<Control>p", NULL } },
     { "win.undo", { "<Control>z", NULL } },
     { "win.redo", { "<Shift><Control>z", "<Control>y", NULL } },
     { "win.add-canal", { "<Shift><Control>n", NULL } },

@@ -30,6 +30,12 @@ struct _CwCanalView
   double         zoom;
   double         pan_x, pan_y;
 
+  /* The layout is kept while the canal and the widget's size stay the
+   * same, and always during a drag, so that the drawing does not move
+   * under the pointer and a frame is only a re-check and a redraw. */
+  CwCanalLayout *layout;
+  int            layout_width, layout_height;
+
   /* a drag in progress: the tip's depth, or the view */
   gboolean       dragging_tip;
   double         drag_pan_x, drag_pan_y;
@@ -55,18 +61,31 @@ view_style (CwCanalView   *self,
   cw_render_style_init (style, prefers_dark (GTK_WIDGET (self)) ? CW_RENDER_DARK : CW_RENDER_LIGHT, 1.3);
 }
 
-static CwCanalLayout *
-make_layout (CwCanalView *self)
+static const CwCanalLayout *
+get_layout (CwCanalView *self)
 {
   const CwCanalResult *result = cw_document_get_result (self->document);
-  cairo_rectangle_t area = { 0, 0, gtk_widget_get_width (GTK_WIDGET (self)),
-                             gtk_widget_get_height (GTK_WIDGET (self)) };
+  int width = gtk_widget_get_width (GTK_WIDGET (self));
+  int height = gtk_widget_get_height (GTK_WIDGET (self));
+  cairo_rectangle_t area = { 0, 0, width, height };
   CwRenderStyle style;
 
-  if (result == NULL || area.width < 10 || area.height < 10)
+  if (self->layout && width == self->layout_width && height == self->layout_height)
+    return self->layout;
+  g_clear_pointer (&self->layout, cw_canal_layout_free);
+  if (result == NULL || width < 10 || height < 10)
     return NULL;
   view_style (self, &style);
-  return cw_canal_layout_new (result->canal, result, &style, &area, CW_CANAL_LAYOUT_FULL);
+  self->layout = cw_canal_layout_new (result->canal, result, &style, &area, CW_CANAL_LAYOUT_FULL);
+  self->layout_width = width;
+  self->layout_height = height;
+  return self->layout;
+}
+
+static void
+invalidate_layout (CwCanalView *self)
+{
+  g_clear_pointer (&self->layout, cw_canal_layout_free);
 }
 
 /* The zoom keeps the middle of the widget in place. */
@@ -87,13 +106,13 @@ cw_canal_view_snapshot (GtkWidget   *widget,
                         GtkSnapshot *snapshot)
 {
   CwCanalView *self = CW_CANAL_VIEW (widget);
-  g_autoptr(CwCanalLayout) layout = NULL;
+  const CwCanalLayout *layout;
   graphene_rect_t bounds;
   CwRenderStyle style;
   cairo_matrix_t m;
   cairo_t *cr;
 
-  if (self->document == NULL || (layout = make_layout (self)) == NULL)
+  if (self->document == NULL || (layout = get_layout (self)) == NULL)
     return;
   view_style (self, &style);
   graphene_rect_init (&bounds, 0, 0, gtk_widget_get_width (widget), gtk_widget_get_height (widget));
@@ -138,7 +157,7 @@ cw_canal_view_depth_point (CwCanalView *self,
                            double      *x,
                            double      *y)
 {
-  g_autoptr(CwCanalLayout) layout = make_layout (self);
+  const CwCanalLayout *layout = get_layout (self);
 
   if (layout == NULL)
     return FALSE;
@@ -152,7 +171,7 @@ depth_at (CwCanalView *self,
           double       x,
           double       y)
 {
-  g_autoptr(CwCanalLayout) layout = make_layout (self);
+  const CwCanalLayout *layout = get_layout (self);
   double offset, distance;
 
   if (layout == NULL)
@@ -304,6 +323,8 @@ update_description (CwCanalView *self)
 static void
 document_changed (CwCanalView *self)
 {
+  if (!cw_document_in_edit (self->document))
+    invalidate_layout (self);
   update_description (self);
   gtk_widget_queue_draw (GTK_WIDGET (self));
 }
@@ -317,6 +338,7 @@ cw_canal_view_set_document (CwCanalView *self,
   g_set_object (&self->document, document);
   g_signal_connect_object (document, "changed", G_CALLBACK (document_changed), self, G_CONNECT_SWAPPED);
   g_signal_connect_object (document, "notify::step-index", G_CALLBACK (document_changed), self, G_CONNECT_SWAPPED);
+  g_signal_connect_object (document, "notify::canal-index", G_CALLBACK (invalidate_layout), self, G_CONNECT_SWAPPED);
   g_signal_connect_object (document, "notify::canal-index", G_CALLBACK (cw_canal_view_reset_view), self, G_CONNECT_SWAPPED);
   document_changed (self);
 }
@@ -327,6 +349,7 @@ cw_canal_view_dispose (GObject *object)
   CwCanalView *self = CW_CANAL_VIEW (object);
 
   g_clear_object (&self->document);
+  invalidate_layout (self);
   G_OBJECT_CLASS (cw_canal_view_parent_class)->dispose (object);
 }
 

@@ -36,6 +36,10 @@ struct _CwWindow
 };
 
 void _cw_window_install_actions (GtkWidgetClass *widget_class);
+void _cw_window_install_export_actions (GtkWidgetClass *widget_class);
+gboolean _cw_window_print_to_file (CwWindow       *self,
+                                   const char     *path,
+                                   GError        **error);
 void _cw_window_update_actions  (CwWindow       *self);
 void _cw_window_save_as         (CwWindow       *self,
                                  gboolean        close_after);

@@ -344,6 +344,7 @@ cw_window_class_init (CwWindowClass *klass)
   gtk_widget_class_bind_template_child (widget_class, CwWindow, recent_menu);
 
   _cw_window_install_actions (widget_class);
+  _cw_window_install_export_actions (widget_class);
 }
 
 static void

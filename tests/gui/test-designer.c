@@ -8,6 +8,8 @@
  */
 #include <glib/gstdio.h>
 #include <math.h>
+#include <stdlib.h>
+#include <string.h>
 
 #include "cw-case-loader.h"
 #include "cw-case-writer.h"
@@ -360,6 +362,48 @@ test_undo_to_original_bytes (Fixture       *f,
   g_assert_cmpuint (cw_document_get_case (f->document)->canals->len, ==, 2);
 }
 
+static int
+pdf_pages (const char *path)
+{
+  g_autofree char *cmd = g_strdup_printf ("pdfinfo '%s'", path);
+  g_autofree char *out = NULL;
+  const char *line;
+
+  g_assert_true (g_spawn_command_line_sync (cmd, &out, NULL, NULL, NULL));
+  line = strstr (out, "Pages:");
+  g_assert_nonnull (line);
+  return atoi (line + strlen ("Pages:"));
+}
+
+/* Ctrl+E opens the export dialog; a typed name ending in .pdf writes the
+ * plan sheet there.  Printing to a file gives the same pages. */
+static void
+test_export_and_print (Fixture       *f,
+                       gconstpointer  data)
+{
+  g_autofree char *pdf = g_build_filename (f->dir, "plan.pdf", NULL);
+  g_autofree char *printed = g_build_filename (f->dir, "printed.pdf", NULL);
+  g_autofree char *keys = NULL;
+  g_autoptr(GError) error = NULL;
+  GString *typed = g_string_new (NULL);
+
+  for (const char *p = pdf; *p; p++)
+    g_string_append_printf (typed, "0x%04x ", (guchar) *p);
+  cw_gui_key ("ctrl+e");
+  cw_gui_settle (800);
+  keys = g_strdup_printf ("ctrl+a %s Return", typed->str);
+  cw_gui_key (keys);
+  cw_gui_settle (800);
+  g_string_free (typed, TRUE);
+  g_assert_true (g_file_test (pdf, G_FILE_TEST_EXISTS));
+  g_assert_cmpint (pdf_pages (pdf), >=, 1);
+  g_assert_true (_cw_window_print_to_file (f->window, printed, &error));
+  g_assert_no_error (error);
+  g_assert_cmpint (pdf_pages (printed), ==, pdf_pages (pdf));
+  g_unlink (pdf);
+  g_unlink (printed);
+}
+
 /* The window is drawn: right size, many colours; the PNG stays as an
  * artifact of the test run. */
 static void
@@ -398,6 +442,7 @@ main (int   argc,
   ADD ("/gui/designer/keyboard-only-workflow", test_keyboard_only_workflow, NULL);
   ADD ("/gui/designer/save-reload", test_save_reload, NULL);
   ADD ("/gui/designer/undo-to-original-bytes", test_undo_to_original_bytes, NULL);
+  ADD ("/gui/designer/export-and-print", test_export_and_print, NULL);
   ADD ("/gui/designer/screenshot", test_screenshot, NULL);
   ADD ("/gui/designer/screenshot-molar", test_screenshot, "lower-molar-moderate.cwcase");
 #undef ADD
