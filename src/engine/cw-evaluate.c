@@ -17,6 +17,12 @@
 
 #define EPS 1e-9
 
+/* Contact is strict (d > P + tol): a file re-inserted 0.5 mm deeper with a
+ * .02 taper is exactly tol wider than its own cut, and must not count as
+ * cutting however the sum rounds.  Differences within TIE of the threshold
+ * are ties. */
+#define TIE 1e-9
+
 /* Everything a step's evaluation depends on besides the step itself. */
 struct _CwEvalState
 {
@@ -181,7 +187,7 @@ add_engaged (CwStepResult *r,
   CwPoint span = { lerp (p->u, p->w, t0), lerp (p->u, p->w, t1) };
   CwPoint *last = r->engaged->len ? &g_array_index (r->engaged, CwPoint, r->engaged->len - 1) : NULL;
 
-  if (h <= 0)
+  if (h <= TIE)
     return;
   r->contact_area += G_PI * h * (f0 + f1) / 2.0;
   r->cut_volume += G_PI / 4.0 * (square_integral (f0, f1, h) - square_integral (p0, p1, h));
@@ -207,13 +213,16 @@ compute_engagement (const Eval      *ev,
     {
       Piece p = grid_piece (ev, pl, grid, k);
       double gu = p.fu - p.pu - tol, gw = p.fw - p.pw - tol;
+      double root = gu != gw ? CLAMP (gu / (gu - gw), 0.0, 1.0) : 0.0;
 
-      if (gu > 0 && gw > 0)
+      /* Ends within TIE of the threshold are ties, not cuts; the root is
+       * where the exact difference crosses it. */
+      if (gu > TIE && gw > TIE)
         add_engaged (r, &p, 0.0, 1.0);
-      else if (gu > 0)
-        add_engaged (r, &p, 0.0, gu / (gu - gw));
-      else if (gw > 0)
-        add_engaged (r, &p, gu / (gu - gw), 1.0);
+      else if (gu > TIE)
+        add_engaged (r, &p, 0.0, root);
+      else if (gw > TIE)
+        add_engaged (r, &p, root, 1.0);
     }
 }
 
@@ -316,6 +325,30 @@ touch_depth (const Placement *pl,
   return s + cw_profile_reach (&pl->profile, envelope);
 }
 
+/* Where P + tol passes the profile's breakpoint diameter d_i on [u, w], the
+ * touch depth reaches s + x_i, x_i the first place the file is d_i wide;
+ * an end of the piece counts when P + tol falls below d_i inside it, since
+ * the touch depth is an infimum there (a file whose widest flute equals
+ * P + tol at the orifice touches just below it). */
+static double
+crossing_touch (const Placement *pl,
+                guint            i,
+                double           u,
+                double           w,
+                double           pu,
+                double           pw)
+{
+  double d = pl->profile.d[i];
+  double x = pl->profile.x[i];
+
+  for (guint j = 0; j < i; j++)
+    if (pl->profile.d[j] >= d)
+      x = MIN (x, pl->profile.x[j]);
+  if (!(MIN (pu, pw) < d) || !(MAX (pu, pw) >= d) || pu == pw)
+    return INFINITY;
+  return lerp (u, w, (d - pu) / (pw - pu)) + x;
+}
+
 /* Item 8: first contact is the least touch depth over the wall.  On a piece
  * where P is linear the touch depth is linear between the points where
  * P + tol crosses one of the profile's breakpoint diameters. */
@@ -341,14 +374,11 @@ first_contact (const Eval      *ev,
       best = MIN (best, touch_depth (pl, u, pu));
       best = MIN (best, touch_depth (pl, w, pw));
       for (guint i = 0; i < pl->profile.n; i++)
-        {
-          double d = pl->profile.d[i];
-
-          if ((pu - d) * (pw - d) < 0)
-            best = MIN (best, lerp (u, w, (d - pu) / (pw - pu)) + pl->profile.x[i]);
-        }
+        best = MIN (best, crossing_touch (pl, i, u, w, pu, pw));
     }
-  return best <= pl->depth + EPS ? MIN (best, pl->depth) : NAN;
+  /* Touching is strict, as engagement is: contact that would only begin at
+   * the final depth never happened. */
+  return best < pl->depth - TIE ? best : NAN;
 }
 
 static void

@@ -282,14 +282,16 @@ cw_profile_max_diameter (const CwProfile *profile)
 }
 
 /* The largest x at which d(x) <= value: 0 when the tip is already wider,
- * INFINITY when the flutes never grow past value. */
+ * INFINITY when the flutes never grow past value.  A widest flute within
+ * rounding of value (a 40/.02 of 10 mm flutes against a 0.60 mm ceiling)
+ * does not grow past it. */
 double
 cw_profile_reach (const CwProfile *profile,
                   double           value)
 {
   if (value < profile->d[0])
     return 0.0;
-  if (value >= cw_profile_max_diameter (profile))
+  if (value >= cw_profile_max_diameter (profile) - 1e-12)
     return INFINITY;
   for (guint i = 1; i < profile->n; i++)
     if (value < profile->d[i])

@@ -1,5 +1,19 @@
 /* cw-planner.h: the best sequence of files to the case's target shape
  *
+ * The model.  A step takes one file of the case to the deepest depth on the
+ * 0.5 mm grid (from the canal's reference point; at most the working length
+ * and the file's own length; deeper than the orifice) at which the engine
+ * finds no stop, and at which it still finds none with the contact
+ * tolerance 1e-9 mm smaller, so that no step hangs on rounding.  A step must
+ * take the tip deeper than any before it or raise the envelope somewhere by
+ * more than the contact tolerance (and 1e-9 mm), or it is no move.  A plan
+ * is complete when the engine's final-shape check passes; it ends there,
+ * after at most max_steps steps.  Plans rank by caution findings over all
+ * steps, then estimated time (equal within 1e-9 s), then steps.  The best
+ * plan is the optimum of this model, found by an exact search; the
+ * alternatives are the next best plans, each of which first differs from
+ * every plan before it in the file used (a state and a file fix the depth).
+ *
  * Copyright 2026 The Canalwright authors
  * SPDX-License-Identifier: GPL-3.0-or-later
  */
@@ -51,9 +65,12 @@ typedef struct
   double    elapsed_ms;
 } CwPlanStats;
 
-/* plans holds the best plan first and then the alternatives when targets
- * are reached; otherwise the one plan that comes closest (or none), and
- * reason says why.  reason is also set when the search stopped early. */
+/* When the targets can be met, plans holds the best plan and then the
+ * alternatives, and reason is NULL.  Otherwise plans holds the one plan
+ * that comes closest (or none when no file has a move) and reason says why:
+ * the missing file or the rule that blocks the way.  reason is also set
+ * when the node budget stopped the search; the plans shown then are the
+ * best seen, not proven best. */
 typedef struct
 {
   GPtrArray   *plans;       /* CwPlan */

@@ -41,8 +41,9 @@ cw_rules_init_defaults (CwRules *rules)
     rules->alloys[i] = alloys[i];
 }
 
-/* Linear between the table's rows; outside it the nearest row, and the
- * caller is told so that it can say the table was left. */
+/* Linear between the table's rows, which are sorted by taper (the loader
+ * refuses any other order); outside it the nearest row, and the caller is
+ * told so that it can say the table was left. */
 double
 cw_rules_ceiling (const CwRules *rules,
                   double         taper,
