@@ -11,7 +11,9 @@
 #include <string.h>
 
 #include "cw-check.h"
+#include "cw-export-cli.h"
 #include "cw-headless.h"
+#include "cw-propose.h"
 
 typedef struct
 {
@@ -31,9 +33,39 @@ run_check (int    argc,
   return cw_check_run (argv[0]);
 }
 
+/* canalwright --propose CASE [--canal NAME] */
+static int
+run_propose (int    argc,
+             char **argv)
+{
+  const char *path = NULL, *canal = NULL;
+
+  for (int i = 0; i < argc; i++)
+    if (strcmp (argv[i], "--canal") == 0 && i + 1 < argc && canal == NULL)
+      canal = argv[++i];
+    else if (path == NULL && argv[i][0] != '-')
+      path = argv[i];
+    else
+      return -1;
+  if (path == NULL)
+    return -1;
+  return cw_propose_run (path, canal);
+}
+
+/* canalwright --export OUT CASE [--canal NAME] [--dpi N] */
+static int
+run_export (int    argc,
+            char **argv)
+{
+  return cw_export_cli_run (argc, argv);
+}
+
 /* Each command gets the arguments after its option; -1 means a usage error. */
 static const Command commands[] = {
   { "--check", "CASE.cwcase", N_("Check every canal's sequence and print the findings as JSON"), run_check },
+  { "--propose", "CASE.cwcase [--canal NAME]", N_("Plan the best sequence for each canal and print the plans as JSON"), run_propose },
+  { "--export", "OUT.png|OUT.pdf|OUT.svg CASE.cwcase [--canal NAME] [--dpi N] [--paper a4|letter] [--theme light|dark|high-contrast] [--diagrams]",
+    N_("Draw the plan: a PDF plan sheet, or a PNG or SVG sequence diagram a canal (OUT-NAME.ext when there are several)"), run_export },
 };
 
 void
