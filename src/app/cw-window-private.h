@@ -35,7 +35,6 @@ struct _CwWindow
   GMenu                *recent_menu;
   GMenu                *library_section;   /* filled by cw-window-library.c */
   GMenu                *teaching_section;  /* filled by cw-window-teaching.c */
-  GtkHeaderBar         *header_bar;
 };
 
 void _cw_window_install_actions (GtkWidgetClass *widget_class);

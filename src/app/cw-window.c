@@ -344,7 +344,6 @@ cw_window_class_init (CwWindowClass *klass)
   gtk_widget_class_bind_template_child (widget_class, CwWindow, recent_menu);
   gtk_widget_class_bind_template_child (widget_class, CwWindow, library_section);
   gtk_widget_class_bind_template_child (widget_class, CwWindow, teaching_section);
-  gtk_widget_class_bind_template_child (widget_class, CwWindow, header_bar);
 
   _cw_window_install_actions (widget_class);
   _cw_window_install_export_actions (widget_class);
