@@ -279,6 +279,7 @@ set_accels (GtkApplication *app)
     { "win.close", { "<Control>w", NULL } },
     { "win.export", { "<Control>e", NULL } },
     { "win.print", { "<Control>p", NULL } },
+    { "win.propose", { "<Control>r", NULL } },
     { "win.undo", { "<Control>z", NULL } },
     { "win.redo", { "<Shift><Control>z", "<Control>y", NULL } },
     { "win.add-canal", { "<Shift><Control>n", NULL } },

@@ -39,6 +39,7 @@ struct _CwWindow
 
 void _cw_window_install_actions (GtkWidgetClass *widget_class);
 void _cw_window_install_export_actions (GtkWidgetClass *widget_class);
+void _cw_window_install_plan_actions   (GtkWidgetClass *widget_class);
 gboolean _cw_window_print_to_file (CwWindow       *self,
                                    const char     *path,
                                    GError        **error);

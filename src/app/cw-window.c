@@ -347,6 +347,7 @@ cw_window_class_init (CwWindowClass *klass)
 
   _cw_window_install_actions (widget_class);
   _cw_window_install_export_actions (widget_class);
+  _cw_window_install_plan_actions (widget_class);
 }
 
 static void

@@ -143,6 +143,7 @@ cw_gui_key (const char *keys)
   g_autofree char *s = g_strdup_printf ("xdotool key --delay 60 %s", keys);
 
   g_assert_true (cw_gui_run (s));
+  cw_gui_settle (100);
 }
 
 /* The whole screen, kept beside the test's build folder as an artifact. */
@@ -155,4 +156,14 @@ cw_gui_screenshot (const char *name)
 
   g_assert_true (cw_gui_run (cmd));
   return path;
+}
+
+/* No window manager gives new windows the keyboard: do it by title. */
+void
+cw_gui_focus_window (const char *title)
+{
+  g_autofree char *s = g_strdup_printf ("xdotool search --sync --name '^%s$' windowfocus --sync", title);
+
+  g_assert_true (cw_gui_run (s));
+  cw_gui_settle (400);
 }

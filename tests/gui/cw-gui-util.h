@@ -30,6 +30,7 @@ void     cw_gui_drag          (int         x0,
                                int         y1);
 void     cw_gui_click         (int         x,
                                int         y);
+void     cw_gui_focus_window (const char *title);
 void     cw_gui_key           (const char *keys);
 char    *cw_gui_screenshot    (const char *name);
 

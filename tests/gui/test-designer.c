@@ -14,6 +14,8 @@
 #include "cw-case-loader.h"
 #include "cw-case-writer.h"
 #include "cw-gui-util.h"
+#include "cw-compare-window.h"
+#include "cw-propose-window.h"
 #include "cw-step-tile.h"
 #include "cw-window-private.h"
 
@@ -362,6 +364,76 @@ test_undo_to_original_bytes (Fixture       *f,
   g_assert_cmpuint (cw_document_get_case (f->document)->canals->len, ==, 2);
 }
 
+static GtkWindow *
+find_toplevel (GType type)
+{
+  g_autoptr(GList) windows = gtk_window_list_toplevels ();
+
+  for (GList *l = windows; l; l = l->next)
+    if (G_TYPE_CHECK_INSTANCE_TYPE (l->data, type) && gtk_widget_get_visible (l->data))
+      return l->data;
+  return NULL;
+}
+
+/* Ctrl+R proposes sequences; the best is previewed, Enter adopts it as one
+ * undoable edit, and it checks with no stop.  Compare shows it beside the
+ * user's own. */
+static CwProposeWindow *
+open_proposals (void)
+{
+  CwProposeWindow *propose;
+  gint64 deadline = g_get_monotonic_time () + 30 * G_USEC_PER_SEC;
+
+  cw_gui_key ("ctrl+r");
+  propose = CW_PROPOSE_WINDOW (find_toplevel (CW_TYPE_PROPOSE_WINDOW));
+  g_assert_nonnull (propose);
+  while (!cw_propose_window_is_ready (propose) && g_get_monotonic_time () < deadline)
+    cw_gui_settle (100);
+  g_assert_true (cw_propose_window_is_ready (propose));
+  g_assert_cmpuint (cw_propose_window_get_n_plans (propose), >=, 1);
+  cw_gui_settle (300);
+  cw_gui_focus_window ("Proposed Sequences");
+  return propose;
+}
+
+static void
+test_propose_and_adopt (Fixture       *f,
+                        gconstpointer  data)
+{
+  g_autofree char *before = cw_case_to_data (cw_document_get_case (f->document));
+  const CwCanalResult *result;
+  GtkWindow *compare;
+
+  open_proposals ();
+  cw_gui_key ("alt+c");
+  compare = find_toplevel (CW_TYPE_COMPARE_WINDOW);
+  g_assert_nonnull (compare);
+  {
+    g_autofree char *difference = cw_compare_window_dup_difference (CW_COMPARE_WINDOW (compare));
+
+    g_assert_nonnull (strstr (difference, "cautions"));
+  }
+  gtk_window_destroy (compare);
+  cw_gui_focus_window ("Proposed Sequences");
+  cw_gui_key ("Escape");
+  g_assert_null (find_toplevel (CW_TYPE_PROPOSE_WINDOW));
+  g_assert_false (cw_document_get_modified (f->document));
+
+  /* Enter on the best plan adopts it. */
+  open_proposals ();
+  cw_gui_key ("Return");
+  g_assert_null (find_toplevel (CW_TYPE_PROPOSE_WINDOW));
+  result = cw_document_get_result (f->document);
+  g_assert_false (result->has_stop);
+  g_assert_cmpuint (result->findings->len, ==, 0);   /* the targets are met */
+  gtk_widget_activate_action (GTK_WIDGET (f->window), "win.undo", NULL);
+  {
+    g_autofree char *after = cw_case_to_data (cw_document_get_case (f->document));
+
+    g_assert_cmpstr (after, ==, before);
+  }
+}
+
 static int
 pdf_pages (const char *path)
 {
@@ -443,6 +515,7 @@ main (int   argc,
   ADD ("/gui/designer/save-reload", test_save_reload, NULL);
   ADD ("/gui/designer/undo-to-original-bytes", test_undo_to_original_bytes, NULL);
   ADD ("/gui/designer/export-and-print", test_export_and_print, NULL);
+  ADD ("/gui/designer/propose-and-adopt", test_propose_and_adopt, "lower-molar-moderate.cwcase");
   ADD ("/gui/designer/screenshot", test_screenshot, NULL);
   ADD ("/gui/designer/screenshot-molar", test_screenshot, "lower-molar-moderate.cwcase");
 #undef ADD
