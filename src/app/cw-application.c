@@ -321,10 +321,14 @@ static void
 cw_application_startup (GApplication *app)
 {
   CwApplication *self = CW_APPLICATION (app);
+  g_autoptr(GtkCssProvider) css = gtk_css_provider_new ();
 
-  /* GtkApplication loads style.css and gtk/help-overlay.ui from the
-   * resource base path by itself. */
+  /* GtkApplication finds gtk/help-overlay.ui under the resource base path
+   * by itself, but not a style sheet. */
   G_APPLICATION_CLASS (cw_application_parent_class)->startup (app);
+  gtk_css_provider_load_from_resource (css, "/org/canalwright/Canalwright/style.css");
+  gtk_style_context_add_provider_for_display (gdk_display_get_default (), GTK_STYLE_PROVIDER (css),
+                                              GTK_STYLE_PROVIDER_PRIORITY_APPLICATION);
 
   self->settings = load_settings ();
   g_action_map_add_action_entries (G_ACTION_MAP (app), app_actions, G_N_ELEMENTS (app_actions), app);

@@ -12,6 +12,7 @@
 
 #include <glib/gi18n.h>
 
+#include "cw-render-text.h"
 #include "cw-shelf.h"
 #include "cw-step-tile.h"
 #include "cw-swatch.h"
@@ -64,9 +65,7 @@ level_class (CwLevel level)
 static char *
 size_text (const CwInstrument *inst)
 {
-  if (inst->segments)
-    return g_strdup_printf (_("%.0f/var."), inst->tip);
-  return g_strdup_printf ("%.0f/%.2f", inst->tip, inst->taper);
+  return cw_render_file_name (inst);
 }
 
 static GtkWidget *

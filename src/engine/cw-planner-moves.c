@@ -45,38 +45,55 @@ cw_envelopes_equal (const CwPwl *a,
 }
 
 static double
-raise_at_points (const CwPwl *before,
-                 const CwPwl *after,
-                 const CwPwl *points)
+raise_at (const CwPwl *before,
+          const CwPwl *after,
+          double       s,
+          CwSide       side)
 {
-  const CwPoint *p = cw_pwl_get_points (points);
-  double most = -INFINITY;
-
-  for (guint i = 0; i < cw_pwl_get_n_points (points); i++)
-    {
-      most = MAX (most, cw_pwl_eval_side (after, p[i].s, CW_SIDE_LEFT) - cw_pwl_eval_side (before, p[i].s, CW_SIDE_LEFT));
-      most = MAX (most, cw_pwl_eval_side (after, p[i].s, CW_SIDE_RIGHT) - cw_pwl_eval_side (before, p[i].s, CW_SIDE_RIGHT));
-    }
-  return most;
+  return cw_pwl_eval_side (after, s, side) - cw_pwl_eval_side (before, s, side);
 }
 
-static double
-largest_raise (const CwPwl *before,
-               const CwPwl *after)
+/* Whether the envelope rose by more than limit somewhere in [a, b], where
+ * the step cut: the difference of the two peaks at a breakpoint of one. */
+static gboolean
+raised_over (const CwPwl *before,
+             const CwPwl *after,
+             double       a,
+             double       b,
+             double       limit)
 {
-  return MAX (raise_at_points (before, after, before), raise_at_points (before, after, after));
+  g_autoptr(GArray) at = g_array_new (FALSE, FALSE, sizeof (double));
+
+  g_array_append_val (at, a);
+  g_array_append_val (at, b);
+  cw_pwl_collect_breaks (after, a, b, at);
+  cw_pwl_collect_breaks (before, a, b, at);
+  for (guint i = 0; i < at->len; i++)
+    {
+      double s = g_array_index (at, double, i);
+
+      if (raise_at (before, after, s, CW_SIDE_LEFT) > limit ||
+          raise_at (before, after, s, CW_SIDE_RIGHT) > limit)
+        return TRUE;
+    }
+  return FALSE;
 }
 
 static guint
 envelope_hash (const CwPwl *envelope)
 {
-  const guint8 *bytes = (const guint8 *) cw_pwl_get_points (envelope);
-  gsize n = cw_pwl_get_n_points (envelope) * sizeof (CwPoint);
-  guint32 hash = 2166136261u;
+  const CwPoint *p = cw_pwl_get_points (envelope);
+  guint64 hash = 14695981039346656037u;
 
-  for (gsize i = 0; i < n; i++)
-    hash = (hash ^ bytes[i]) * 16777619u;
-  return hash;
+  for (guint i = 0; i < cw_pwl_get_n_points (envelope); i++)
+    {
+      guint64 bits[2];
+
+      memcpy (bits, &p[i], sizeof bits);
+      hash = (hash ^ bits[0]) * 1099511628211u;
+      hash = (hash ^ bits[1]) * 1099511628211u;
+    }
+  return (guint) (hash ^ (hash >> 32));
 }
 
 static guint
@@ -101,7 +118,8 @@ count_fixed_cautions (const CwStepResult *r)
       const CwFinding *f = g_ptr_array_index (r->findings, i);
 
       n += f->level == CW_LEVEL_CAUTION &&
-           (f->rule == CW_RULE_TORSION || f->rule == CW_RULE_STRAIN || f->rule == CW_RULE_CEILING_TABLE);
+           (f->rule == CW_RULE_TORSION || f->rule == CW_RULE_STRAIN ||
+            f->rule == CW_RULE_CEILING_TABLE);
     }
   return n;
 }
@@ -137,8 +155,9 @@ cw_planner_fixed_stop (Planner *p,
   if (f->fixed[k] == 0)
     {
       g_autoptr(CwEvalState) state = cw_eval_state_copy (p->root_state);
-      g_autoptr(CwStepResult) r = cw_eval_state_apply (state, f->instrument, k * CW_PLAN_GRID, FALSE);
+      g_autoptr(CwStepResult) r = NULL;
 
+      r = cw_eval_state_apply (state, f->instrument, k * CW_PLAN_GRID, FALSE);
       p->stats.evaluated++;
       f->fixed[k] = has_fixed_stop (r) ? 2 : 1;
       f->fixed_cautions[k] = count_fixed_cautions (r);
@@ -159,12 +178,17 @@ next_glide (const Planner  *p,
   return f->glide_file ? MAX (glide, depth) : glide;
 }
 
-/* The engine's own final-shape check decides. */
+/* The engine's own final-shape check decides; a taper clearly short of
+ * the target spares it writing its sentence. */
 static gboolean
-shape_met (const CwEvalState *state)
+shape_met (const Planner     *p,
+           const CwEvalState *state)
 {
-  g_autoptr(CwFinding) shape = cw_eval_state_final_shape (state);
+  g_autoptr(CwFinding) shape = NULL;
 
+  if (cw_eval_state_apical_taper (state) < p->target_taper - 1e-3)
+    return FALSE;
+  shape = cw_eval_state_final_shape (state);
   return shape == NULL;
 }
 
@@ -212,7 +236,7 @@ set_key (Planner  *p,
   double size = cw_eval_state_apical_size (node->state);
 
   node->apical_met = size >= p->target_size - PLAN_EPS;
-  node->goal = node->apical_met && shape_met (node->state);
+  node->goal = node->apical_met && shape_met (p, node->state);
   node->shortfall = shortfall_of (p, node->state);
   node->hash = envelope_hash (cw_eval_state_envelope (node->state));
   set_bound (p, node);
@@ -224,8 +248,6 @@ cw_planner_root (Planner *p)
   PlanNode *root = node_new (p);
 
   root->state = cw_eval_state_copy (p->root_state);
-  if (p->strict_root)
-    root->strict = cw_eval_state_copy (p->strict_root);
   root->instrument = G_MAXUINT;
   root->depth = NAN;
   root->previous = -1;
@@ -259,55 +281,66 @@ child_new (Planner            *p,
   return node;
 }
 
-static gboolean
-is_move (const Planner     *p,
-         const PlanNode    *from,
-         const CwEvalState *after,
-         double             depth)
-{
-  return depth > from->deepest + PLAN_EPS ||
-         largest_raise (cw_eval_state_envelope (from->state),
-                        cw_eval_state_envelope (after)) > p->rules->contact_tolerance + PLAN_TOLERANCE_MARGIN;
-}
-
+/* The largest d - P over [a, b], taking the lower side of each jump of P. */
 static double
-curve_overlap (const Planner *p,
-               double         a,
-               double         b)
+largest_gap (const CwPwl *widest,
+             const CwPwl *envelope,
+             double       a,
+             double       b)
 {
-  double total = 0.0;
+  g_autoptr(GArray) at = g_array_new (FALSE, FALSE, sizeof (double));
+  double most = -INFINITY;
 
-  for (guint c = 0; c < p->geo.n_curves; c++)
-    total += MAX (0.0, MIN (b, p->geo.end[c]) - MAX (a, p->geo.onset[c]));
-  return total;
+  g_array_append_val (at, a);
+  g_array_append_val (at, b);
+  cw_pwl_collect_breaks (widest, a, b, at);
+  cw_pwl_collect_breaks (envelope, a, b, at);
+  for (guint i = 0; i < at->len; i++)
+    {
+      double s = g_array_index (at, double, i), d = cw_pwl_eval (widest, s);
+
+      most = MAX (most, d - cw_pwl_eval_side (envelope, s, CW_SIDE_LEFT));
+      most = MAX (most, d - cw_pwl_eval_side (envelope, s, CW_SIDE_RIGHT));
+    }
+  return most;
 }
 
-/* Only curve engagement depends on the tolerance, and only where the
- * flutes can lie in the curves over the allowed length. */
+/* A file that can neither go deeper than any before it nor, at any depth,
+ * be wider than the tolerance over the envelope anywhere has no move; the
+ * check costs far less than an evaluation. */
 static gboolean
-strict_stop (Planner        *p,
-             const PlanNode *from,
-             guint           file,
-             double          depth)
+may_move (const Planner  *p,
+          const PlanNode *from,
+          const PlanFile *f)
 {
-  const PlanFile *f = &p->files[file];
-  double top = MAX (p->canal->orifice_depth, depth - f->instrument->flute_length);
-  g_autoptr(CwEvalState) state = NULL;
-  g_autoptr(CwStepResult) r = NULL;
+  double top = f->top * CW_PLAN_GRID;
 
-  if (!f->strict_check || curve_overlap (p, top, depth) <= p->rules->curve_engagement_max)
-    return FALSE;
-  state = cw_eval_state_copy (from->strict);
-  r = cw_eval_state_apply (state, f->instrument, depth, FALSE);
-  p->stats.evaluated++;
-  return r->verdict == CW_LEVEL_STOP;
+  if (f->widest == NULL || top > from->deepest + PLAN_EPS)
+    return TRUE;
+  return largest_gap (f->widest, cw_eval_state_envelope (from->state), p->canal->orifice_depth, top) >
+         p->rules->contact_tolerance + PLAN_RAISE_MARGIN;
+}
+
+/* The envelope changes only where the flutes lay. */
+static gboolean
+is_move (const Planner      *p,
+         const PlanNode     *from,
+         const CwEvalState  *after,
+         const CwInstrument *inst,
+         double              depth)
+{
+  double top = MAX (p->canal->orifice_depth, depth - inst->flute_length);
+
+  if (depth > from->deepest + PLAN_EPS)
+    return TRUE;
+  return raised_over (cw_eval_state_envelope (from->state), cw_eval_state_envelope (after),
+                      top, depth, p->rules->contact_tolerance + PLAN_RAISE_MARGIN);
 }
 
 /* The scan is literal: the deepest grid depth without a stop, whether or
  * not a deeper one is also free of stops.  The rules need not be monotone
  * in depth (flutes can leave a curve coronally as the tip goes on, and a
- * variable taper changes the ceiling), so no depth is skipped by bisection.
- * The child has its state but not yet its strict twin. */
+ * variable taper changes the ceiling), so no depth is skipped by bisection. */
 PlanNode *
 cw_planner_move (Planner  *p,
                  PlanNode *from,
@@ -315,6 +348,8 @@ cw_planner_move (Planner  *p,
 {
   const PlanFile *f = &p->files[file];
 
+  if (!may_move (p, from, f))
+    return NULL;
   for (int k = f->top; k >= f->bottom; k--)
     {
       g_autoptr(CwEvalState) state = NULL;
@@ -325,53 +360,37 @@ cw_planner_move (Planner  *p,
       state = cw_eval_state_copy (from->state);
       r = cw_eval_state_apply (state, f->instrument, k * CW_PLAN_GRID, FALSE);
       p->stats.evaluated++;
-      if (r->verdict == CW_LEVEL_STOP || strict_stop (p, from, file, r->depth))
+      if (r->verdict == CW_LEVEL_STOP)
         continue;
-      if (!is_move (p, from, state, r->depth))
+      if (!is_move (p, from, state, f->instrument, r->depth))
         return NULL;
       return child_new (p, from, file, g_steal_pointer (&state), r);
     }
   return NULL;
 }
 
-static CwEvalState *
-apply_to_copy (Planner           *p,
-               const CwEvalState *state,
-               const PlanNode    *node,
-               CwLevel           *verdict)
-{
-  CwEvalState *copy = cw_eval_state_copy (state);
-  g_autoptr(CwStepResult) r = cw_eval_state_apply (copy, p->files[node->instrument].instrument, node->depth, FALSE);
-
-  p->stats.evaluated++;
-  *verdict = MAX (*verdict, r->verdict);
-  return copy;
-}
-
-/* Rebuilds what the node lacks from its parent's; FALSE if the step then
- * has a stop, which would mean that evaluation is not repeatable. */
+/* Rebuilds the state of a queued node from its parent's; FALSE if the step
+ * then has a stop, which would mean that evaluation is not repeatable. */
 gboolean
 cw_planner_complete (Planner  *p,
                      PlanNode *node)
 {
-  CwLevel verdict = CW_LEVEL_OK;
+  g_autoptr(CwStepResult) r = NULL;
 
-  if (node->parent == NULL)
+  if (node->state || node->parent == NULL)
     return TRUE;
   g_return_val_if_fail (node->parent->state != NULL, FALSE);
 
-  if (node->state == NULL)
-    node->state = apply_to_copy (p, node->parent->state, node, &verdict);
-  if (node->strict == NULL && p->strict_case)
-    node->strict = apply_to_copy (p, node->parent->strict, node, &verdict);
-  return verdict != CW_LEVEL_STOP;
+  node->state = cw_eval_state_copy (node->parent->state);
+  r = cw_eval_state_apply (node->state, p->files[node->instrument].instrument, node->depth, FALSE);
+  p->stats.evaluated++;
+  return r->verdict != CW_LEVEL_STOP;
 }
 
 void
 cw_planner_release (PlanNode *node)
 {
   g_clear_pointer (&node->state, cw_eval_state_free);
-  g_clear_pointer (&node->strict, cw_eval_state_free);
 }
 
 static gboolean
@@ -393,13 +412,26 @@ has_taper_peer (const Planner      *p,
   return FALSE;
 }
 
-/* The files the curve-engagement rule exempts, as the engine decides. */
-static gboolean
-is_small_file (const CwRules      *rules,
-               const CwInstrument *inst)
+/* d (min (flute length, top - s)): at any depth up to top, the fluted part
+ * at s is no wider.  NULL when the profile narrows somewhere, where that
+ * would not hold. */
+static CwPwl *
+widest_function (const CwInstrument *inst,
+                 double              top)
 {
-  return inst->tip <= rules->small_file_tip_max + PLAN_EPS &&
-         cw_instrument_largest_taper (inst) <= rules->small_file_taper_max + CW_TAPER_EPSILON;
+  CwProfile profile;
+  CwPwl *widest;
+
+  cw_profile_init (&profile, inst);
+  for (guint i = 1; i < profile.n; i++)
+    if (profile.d[i] < profile.d[i - 1])
+      return NULL;
+  widest = cw_pwl_new ();
+  cw_pwl_append (widest, top - profile.flute_length, cw_profile_diameter (&profile, profile.flute_length));
+  for (guint i = profile.n; i-- > 0;)
+    if (profile.x[i] < profile.flute_length)
+      cw_pwl_append (widest, top - profile.x[i], profile.d[i]);
+  return widest;
 }
 
 static void
@@ -413,9 +445,9 @@ init_file (Planner            *p,
   f->powered = cw_instrument_is_powered (inst);
   f->glide_file = inst->tip <= p->rules->glide_path_tip_max + PLAN_EPS;
   f->taper_peer = has_taper_peer (p, inst);
-  f->strict_check = p->geo.n_curves > 0 && !is_small_file (p->rules, inst);
   f->top = (int) floor (cap / CW_PLAN_GRID + PLAN_EPS);
   f->bottom = (int) floor (p->canal->orifice_depth / CW_PLAN_GRID + PLAN_EPS) + 1;
+  f->widest = widest_function (inst, f->top * CW_PLAN_GRID);
   f->fixed = g_new0 (guint8, MAX (f->top, 0) + 1);
   f->fixed_cautions = g_new0 (guint8, MAX (f->top, 0) + 1);
 }
@@ -450,20 +482,6 @@ any_powered (const CwCase *kase)
   return FALSE;
 }
 
-static void
-init_strict (Planner *p)
-{
-  gboolean needed = FALSE;
-
-  for (guint i = 0; i < p->n_files; i++)
-    needed |= p->files[i].strict_check;
-  if (!needed)
-    return;
-  p->strict_case = cw_case_copy (p->kase);
-  p->strict_case->rules.contact_tolerance -= PLAN_TOLERANCE_MARGIN;
-  p->strict_root = cw_eval_state_new (p->strict_case, p->canal);
-}
-
 Planner *
 cw_planner_new (const CwCase        *kase,
                 const CwCanal       *canal,
@@ -486,7 +504,6 @@ cw_planner_new (const CwCase        *kase,
   p->files = g_new0 (PlanFile, MAX (p->n_files, 1));
   for (guint i = 0; i < p->n_files; i++)
     init_file (p, &p->files[i], g_ptr_array_index (kase->instruments, i));
-  init_strict (p);
   p->apical_cautions = least_apical_cautions (p);
   return p;
 }
@@ -502,12 +519,11 @@ cw_planner_free (Planner *p)
   for (guint i = 0; i < p->n_files; i++)
     {
       g_free (p->files[i].fixed);
+      cw_pwl_free (p->files[i].widest);
       g_free (p->files[i].fixed_cautions);
     }
   g_free (p->files);
   cw_eval_state_free (p->root_state);
-  cw_eval_state_free (p->strict_root);
-  cw_case_free (p->strict_case);
   cw_canal_free (p->canal);
   g_free (p);
 }

@@ -12,13 +12,10 @@ G_BEGIN_DECLS
 
 #define PLAN_EPS 1e-9
 
-/* Rounding decides contact where a file lies exactly the contact tolerance
- * over the envelope, which the 0.5 mm grid makes common (a .02 file half a
- * millimetre deeper is 0.01 mm wider).  A step counts as free of stops only
- * if it stays so with the tolerance this much smaller, and a raise counts
- * only if it is this much over the tolerance, so that no plan hangs on
- * rounding. */
-#define PLAN_TOLERANCE_MARGIN 1e-9
+/* A raise of exactly the contact tolerance, which the 0.5 mm grid makes
+ * common (a .02 file half a millimetre deeper is 0.01 mm wider), is no
+ * raise "by more than" it, whatever the rounding says. */
+#define PLAN_RAISE_MARGIN 1e-9
 
 /* Ranked lexicographically: cautions, then time, then steps. */
 typedef struct
@@ -35,8 +32,7 @@ typedef struct _PlanNode PlanNode;
 struct _PlanNode
 {
   PlanNode    *parent;
-  CwEvalState *state;          /* kept once settled; rebuilt from the parent's when popped */
-  CwEvalState *strict;         /* the same under the smaller tolerance, when a file needs it */
+  CwEvalState *state;          /* NULL while queued past the cap; kept once settled */
   guint        instrument;
   double       depth;
   PlanCost     g;
@@ -58,11 +54,11 @@ typedef struct
   gboolean            powered;
   gboolean            glide_file;
   gboolean            taper_peer;  /* another powered file has its nominal taper */
-  gboolean            strict_check; /* curve engagement can stop it */
   int                 top;         /* grid index of the deepest allowed depth */
   int                 bottom;      /* grid index of the shallowest depth past the orifice */
-  guint8             *fixed;       /* per grid index: 0 unknown, 1 free, 2 stopped by the file alone */
+  guint8             *fixed;       /* per grid index: 0 unknown, 1 free, 2 stopped */
   guint8             *fixed_cautions;
+  CwPwl              *widest;      /* the widest it can be at each s, at any depth; or NULL */
 } PlanFile;
 
 typedef struct
@@ -77,8 +73,6 @@ typedef struct
   PlanFile       *files;
   guint           n_files;
   CwEvalState    *root_state;
-  CwCase         *strict_case;     /* the case with the smaller tolerance, or NULL */
-  CwEvalState    *strict_root;
   double          glide_start;
   guint           apical_cautions; /* least fixed cautions of a step that can give the size */
   GPtrArray      *nodes;           /* every PlanNode, freed at the end */

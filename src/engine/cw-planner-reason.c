@@ -30,7 +30,9 @@ num (Numbers *n,
 {
   char *buf = n->bufs[n->next++ % G_N_ELEMENTS (n->bufs)];
 
-  return g_ascii_formatd (buf, G_ASCII_DTOSTR_BUF_SIZE, decimals == 0 ? "%.0f" : decimals == 1 ? "%.1f" : "%.3f", value);
+  static const char *formats[] = { "%.0f", "%.1f", "%.2f", "%.3f" };
+
+  return g_ascii_formatd (buf, G_ASCII_DTOSTR_BUF_SIZE, formats[CLAMP (decimals, 0, 3)], value);
 }
 
 static gboolean
@@ -59,8 +61,9 @@ stop_at_length (Planner           *p,
   for (int k = f->top; k >= f->bottom && k * CW_PLAN_GRID >= at_length (p); k--)
     {
       g_autoptr(CwEvalState) copy = cw_eval_state_copy (state);
-      g_autoptr(CwStepResult) r = cw_eval_state_apply (copy, f->instrument, k * CW_PLAN_GRID, FALSE);
+      g_autoptr(CwStepResult) r = NULL;
 
+      r = cw_eval_state_apply (copy, f->instrument, k * CW_PLAN_GRID, FALSE);
       p->stats.evaluated++;
       if (r->verdict != CW_LEVEL_STOP)
         {
@@ -108,11 +111,35 @@ size_never_at_length (Planner *p)
       if (!is_apical_file (p, i))
         continue;
       stop = stop_at_length (p, p->root_state, i);
-      g_string_append_printf (which, "%s%s (%s)", which->len ? ", " : "", p->files[i].instrument->id,
+      g_string_append_printf (which, "%s%s (%s)", which->len ? ", " : "",
+                              p->files[i].instrument->id,
                               cw_rule_to_string (stop ? stop->rule : CW_RULE_INSTRUMENT_LENGTH));
     }
   return g_strdup_printf (_("No file of size %s or more can reach the working length without a stop, whatever is done before: %s."),
                           num (&n, p->target_size, 0), which->str);
+}
+
+/* The widest the file can make the canal at s: its flutes must cover s,
+ * at a depth no fixed rule stops.  A file that never narrows is widest
+ * there at the deepest such depth. */
+static double
+widest_file_at (Planner *p,
+                guint    file,
+                double   s)
+{
+  const PlanFile *f = &p->files[file];
+  double widest = 0.0;
+
+  if (s < p->canal->orifice_depth)
+    return widest;
+  for (int k = f->top; k >= f->bottom && k * CW_PLAN_GRID >= s; k--)
+    if (k * CW_PLAN_GRID - f->instrument->flute_length <= s && !cw_planner_fixed_stop (p, file, k))
+      {
+        widest = MAX (widest, cw_instrument_diameter (f->instrument, k * CW_PLAN_GRID - s));
+        if (f->widest)
+          break;
+      }
+  return widest;
 }
 
 /* The widest any file can make the canal 3 mm short of length. */
@@ -123,14 +150,7 @@ widest_at (Planner *p,
   double widest = cw_pwl_eval (cw_eval_state_envelope (p->root_state), s);
 
   for (guint i = 0; i < p->n_files; i++)
-    {
-      const PlanFile *f = &p->files[i];
-
-      for (int k = f->top; k >= f->bottom && k * CW_PLAN_GRID >= s; k--)
-        if (k * CW_PLAN_GRID - f->instrument->flute_length <= s && s >= p->canal->orifice_depth &&
-            !cw_planner_fixed_stop (p, i, k))
-          widest = MAX (widest, cw_instrument_diameter (f->instrument, k * CW_PLAN_GRID - s));
-    }
+    widest = MAX (widest, widest_file_at (p, i, s));
   return widest;
 }
 
@@ -147,7 +167,8 @@ taper_out_of_reach (Planner *p)
     largest = MAX (largest, cw_instrument_largest_taper (p->files[i].instrument));
   if (largest < p->target_taper - CW_TAPER_EPSILON)
     return g_strdup_printf (_("No file in the set has a taper of %s or more, and the files on hand give an apical taper of %s at most (step-back included), short of the target %s."),
-                            num (&n, p->target_taper, 3), num (&n, most, 3), num (&n, p->target_taper, 3));
+                            num (&n, p->target_taper, 3), num (&n, most, 3),
+                            num (&n, p->target_taper, 3));
   return g_strdup_printf (_("The files on hand give an apical taper of %s at most, short of the target %s."),
                           num (&n, most, 3), num (&n, p->target_taper, 3));
 }
@@ -169,8 +190,9 @@ static gboolean
 is_tapered_apical_file (const Planner *p,
                         guint          file)
 {
-  return is_apical_file (p, file) &&
-         cw_instrument_largest_taper (p->files[file].instrument) >= p->target_taper - CW_TAPER_EPSILON;
+  double taper = cw_instrument_largest_taper (p->files[file].instrument);
+
+  return is_apical_file (p, file) && taper >= p->target_taper - CW_TAPER_EPSILON;
 }
 
 typedef gboolean (*FileFilter) (const Planner *p,
@@ -266,7 +288,8 @@ replay (Planner        *p,
   if (node == NULL || node->parent == NULL)
     return cw_eval_state_copy (p->root_state);
   state = replay (p, node->parent);
-  cw_step_result_free (cw_eval_state_apply (state, p->files[node->instrument].instrument, node->depth, FALSE));
+  cw_step_result_free (cw_eval_state_apply (state, p->files[node->instrument].instrument,
+                                            node->depth, FALSE));
   return state;
 }
 
@@ -340,8 +363,6 @@ cw_planner_beam (Planner *p,
               g_ptr_array_add (next, child);
           }
       keep_best (next, width);
-      for (guint i = 0; i < next->len; i++)
-        cw_planner_complete (p, g_ptr_array_index (next, i));
       for (guint i = 0; i < level->len; i++)
         cw_planner_release (g_ptr_array_index (level, i));
       if (next->len > 0 && (best == NULL || compare_closeness (&next->pdata[0], &best) < 0))

@@ -30,10 +30,15 @@
 
 #include "cw-planner-private.h"
 
+/* Queued children keep their state up to this many; past it they are
+ * rebuilt from their parent's when they come out. */
+#define MAX_QUEUED_STATES 20000
+
 typedef struct
 {
   Planner    *p;
   guint       n_plans;
+  guint       queued_states;
   GPtrArray  *heap;
   GHashTable *settled;   /* envelope hash -> GPtrArray of PlanNode */
   PlanNode   *bound[CW_PLAN_MAX_ALTERNATIVES + 1];   /* cheapest goals seen */
@@ -187,9 +192,7 @@ drop (Search   *s,
   s->p->stats.pruned++;
 }
 
-/* Children are queued without their state, which is rebuilt from the
- * parent's when they come out: one evaluation more per settled node keeps
- * the memory to the settled ones.  FALSE when the budget cut it short. */
+/* FALSE when the budget cut it short. */
 static gboolean
 expand (Search   *s,
         PlanNode *node)
@@ -215,7 +218,10 @@ expand (Search   *s,
         }
       if (child->goal)
         add_bound (s, child);
-      cw_planner_release (child);
+      if (s->queued_states < MAX_QUEUED_STATES)
+        s->queued_states++;
+      else
+        cw_planner_release (child);
       heap_push (s->heap, child);
     }
   return TRUE;
@@ -229,9 +235,10 @@ next_node (Search *s)
 
   while ((node = heap_pop (s->heap)) != NULL)
     {
+      s->queued_states -= node->state != NULL;
       if (over_bound (s, node))
         {
-          s->p->stats.pruned++;
+          drop (s, node);
           continue;
         }
       if (!cw_planner_complete (s->p, node))
@@ -274,7 +281,7 @@ cw_planner_search (Planner   *p,
                    PlanNode **goals,
                    PlanNode **closest)
 {
-  Search s = { .p = p, .n_plans = n_plans };
+  Search s = { .p = p, .n_plans = n_plans, .queued_states = 1 };
   PlanNode *node;
   guint n_goals = 0;
 

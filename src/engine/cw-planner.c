@@ -108,7 +108,11 @@ plan_new (const Planner  *p,
 
       stop |= r->verdict == CW_LEVEL_STOP;
       for (guint j = 0; j < r->findings->len; j++)
-        plan->cautions += ((CwFinding *) g_ptr_array_index (r->findings, j))->level == CW_LEVEL_CAUTION;
+        {
+          const CwFinding *f = g_ptr_array_index (r->findings, j);
+
+          plan->cautions += f->level == CW_LEVEL_CAUTION;
+        }
     }
   shape = cw_eval_state_final_shape (state);
   plan->time = cw_eval_state_time (state);

@@ -3,10 +3,10 @@
  * The model.  A step takes one file of the case to the deepest depth on the
  * 0.5 mm grid (from the canal's reference point; at most the working length
  * and the file's own length; deeper than the orifice) at which the engine
- * finds no stop, and at which it still finds none with the contact
- * tolerance 1e-9 mm smaller, so that no step hangs on rounding.  A step must
- * take the tip deeper than any before it or raise the envelope somewhere by
- * more than the contact tolerance (and 1e-9 mm), or it is no move.  A plan
+ * finds no stop.  A step must take the tip deeper than any before it or
+ * raise the envelope somewhere by more than the contact tolerance (a raise
+ * within 1e-9 mm of it does not count, whatever the rounding), or it is no
+ * move.  A plan
  * is complete when the engine's final-shape check passes; it ends there,
  * after at most max_steps steps.  Plans rank by caution findings over all
  * steps, then estimated time (equal within 1e-9 s), then steps.  The best

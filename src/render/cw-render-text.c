@@ -199,7 +199,7 @@ cw_render_file_name (const CwInstrument *instrument)
   g_autoptr(GString) name = g_string_new (NULL);
 
   if (instrument->tip == round (instrument->tip))
-    g_string_append_printf (name, "%d/", (int) instrument->tip);
+    g_string_append_printf (name, "%02d/", (int) instrument->tip);   /* ISO writes 06, 08 */
   else
     {
       char buf[G_ASCII_DTOSTR_BUF_SIZE];
