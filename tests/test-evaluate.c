@@ -675,19 +675,19 @@ test_messages_name_numbers (void)
   g_autoptr(CwCase) kase = cw_case_new ();
   CwCanal *canal = curved_canal (kase);
   g_autoptr(CwCanalResult) res = NULL;
-  const CwFinding *f;
+  g_autofree char *ceiling = NULL;
+  g_autofree char *glide = NULL;
 
   cw_test_instrument (kase, "r30", 30, 0.04, CW_ALLOY_NITI, CW_MOTION_ROTARY);
   cw_canal_add_step (canal, "r30", 21);
   res = evaluate (kase, canal);
-  f = cw_test_find (cw_canal_result_get_step (res, 0), CW_RULE_DIAMETER_CEILING);
-  g_assert_nonnull (strstr (f->message, "21.00"));
-  g_assert_nonnull (strstr (f->message, "20.25"));
-  g_assert_nonnull (strstr (f->message, "0.55"));
-  g_assert_nonnull (strstr (f->message, "0.580"));
-  f = cw_test_find (cw_canal_result_get_step (res, 0), CW_RULE_GLIDE_PATH);
-  g_assert_nonnull (f);
-  g_assert_nonnull (strstr (f->message, "15"));
+  ceiling = cw_finding_describe (cw_test_find (cw_canal_result_get_step (res, 0), CW_RULE_DIAMETER_CEILING), TRUE);
+  g_assert_nonnull (strstr (ceiling, "21.00"));
+  g_assert_nonnull (strstr (ceiling, "20.25"));
+  g_assert_nonnull (strstr (ceiling, "0.55"));
+  g_assert_nonnull (strstr (ceiling, "0.580"));
+  glide = cw_finding_describe (cw_test_find (cw_canal_result_get_step (res, 0), CW_RULE_GLIDE_PATH), TRUE);
+  g_assert_nonnull (strstr (glide, "15"));
 }
 
 /* Nothing cuts above the orifice: the access cavity has no wall. */

@@ -428,11 +428,12 @@ compute_torsion (const Eval      *ev,
   r->fracture_torque_d3 = alloy->section_factor * alloy->shear_strength * G_PI * d3 * d3 * d3 / 16.0 / 10.0;
 }
 
+/* Findings keep their numbers; the sentence is written only when a report
+ * or a view asks (cw_finding_describe), which keeps the planner fast. */
 static void
 add_finding (CwStepResult *r,
              CwFinding    *finding)
 {
-  finding->message = cw_finding_describe (finding, TRUE);
   g_ptr_array_add (r->findings, finding);
 }
 
@@ -642,7 +643,6 @@ cw_eval_state_final_shape (const CwEvalState *ev)
   f = cw_finding_new (CW_RULE_FINAL_SHAPE, CW_LEVEL_CAUTION, size, ev->kase->target_apical_size);
   f->other = taper;
   f->other_limit = ev->kase->target_apical_taper;
-  f->message = cw_finding_describe (f, TRUE);
   return f;
 }
 

@@ -32,8 +32,9 @@ typedef enum
   CW_N_RULES
 } CwRule;
 
-/* The numbers a finding names, kept so that the sentence can be written
- * again in the user's locale; the stored message uses the C locale. */
+/* The numbers a finding names; cw_finding_describe writes the sentence,
+ * in the C locale for the JSON report or in the user's for the views.
+ * message is spare room for a caller that keeps one. */
 typedef struct
 {
   CwRule   rule;

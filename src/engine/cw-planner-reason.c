@@ -5,7 +5,7 @@
  * depend on the file and the canal only), or an apical taper above what any
  * envelope of the set can give.  Otherwise the reason names the rule that
  * stops every file of the size short of length after the closest plan.
- * Numbers are written in the C locale, like the engine's stored messages.
+ * Numbers are written in the C locale, like the JSON report's messages.
  *
  * Copyright 2026 The Canalwright authors
  * SPDX-License-Identifier: GPL-3.0-or-later
@@ -78,7 +78,6 @@ stop_at_length (Planner           *p,
     {
       first = cw_finding_new (CW_RULE_INSTRUMENT_LENGTH, CW_LEVEL_STOP, p->canal->working_length,
                               f->instrument->length);
-      first->message = cw_finding_describe (first, TRUE);
     }
   return first;
 }
@@ -213,6 +212,7 @@ blocked_files (Planner           *p,
   for (guint i = 0; i < p->n_files; i++)
     {
       g_autoptr(CwFinding) stop = NULL;
+      g_autofree char *sentence = NULL;
 
       if (!filter (p, i))
         continue;
@@ -220,8 +220,9 @@ blocked_files (Planner           *p,
       if (stop == NULL)
         return NULL;
       *rule = which->len == 0 || *rule == (int) stop->rule ? (int) stop->rule : -2;
+      sentence = cw_finding_describe (stop, TRUE);
       g_string_append_printf (which, "%s%s: %s", which->len ? " " : "", p->files[i].instrument->id,
-                              stop->message);
+                              sentence);
     }
   return g_string_free (g_steal_pointer (&which), FALSE);
 }

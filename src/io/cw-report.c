@@ -41,11 +41,12 @@ add_findings (JsonBuilder *b,
   for (guint i = 0; i < findings->len; i++)
     {
       const CwFinding *f = g_ptr_array_index (findings, i);
+      g_autofree char *message = cw_finding_describe (f, TRUE);
 
       json_builder_begin_object (b);
       add_string (b, "rule", cw_rule_to_string (f->rule));
       add_string (b, "level", cw_level_to_string (f->level));
-      add_string (b, "message", f->message);
+      add_string (b, "message", message);
       json_builder_end_object (b);
     }
   json_builder_end_array (b);
