@@ -12,6 +12,7 @@
 
 #include "cw-check.h"
 #include "cw-export-cli.h"
+#include "cw-frames-cli.h"
 #include "cw-headless.h"
 #include "cw-propose.h"
 
@@ -66,6 +67,8 @@ static const Command commands[] = {
   { "--propose", "CASE.cwcase [--canal NAME]", N_("Plan the best sequence for each canal and print the plans as JSON"), run_propose },
   { "--export", "OUT.png|OUT.pdf|OUT.svg CASE.cwcase [--canal NAME] [--dpi N] [--paper a4|letter] [--theme light|dark|high-contrast] [--diagrams]",
     N_("Draw the plan: a PDF plan sheet, or a PNG or SVG sequence diagram a canal (OUT-NAME.ext when there are several)"), run_export },
+  { "--export-frames", "DIR CASE.cwcase [--canal NAME] [--frames-per-step N] [--dpi N] [--overlays LIST] [--theme light|dark|high-contrast]",
+    N_("Draw every playback frame as a PNG slide: DIR/CANAL-STEP-FRAME.png"), cw_frames_cli_run },
 };
 
 void

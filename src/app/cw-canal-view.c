@@ -18,6 +18,7 @@
 #include "cw-canal-renderer.h"
 #include "cw-canal-view.h"
 #include "cw-inspector.h"
+#include "cw-render-text.h"
 
 #define TIP_GRAB_RADIUS 14.0
 #define DEPTH_SNAP 0.5
@@ -40,6 +41,10 @@ struct _CwCanalView
   gboolean       dragging_tip;
   double         drag_pan_x, drag_pan_y;
   double         drag_start_depth;
+
+  /* teaching */
+  CwOverlayFlags overlays;
+  CwPlayback    *playback;
 };
 
 G_DEFINE_FINAL_TYPE (CwCanalView, cw_canal_view, GTK_TYPE_WIDGET)
@@ -76,7 +81,8 @@ get_layout (CwCanalView *self)
   if (result == NULL || width < 10 || height < 10)
     return NULL;
   view_style (self, &style);
-  self->layout = cw_canal_layout_new (result->canal, result, &style, &area, CW_CANAL_LAYOUT_FULL);
+  self->layout = cw_canal_layout_new_for_overlays (result->canal, result, &style, &area, CW_CANAL_LAYOUT_FULL,
+                                                   self->overlays);
   self->layout_width = width;
   self->layout_height = height;
   return self->layout;
@@ -102,6 +108,70 @@ view_transform (CwCanalView    *self,
 }
 
 static void
+draw_canal (CwCanalView         *self,
+            cairo_t             *cr,
+            const CwCanalLayout *layout)
+{
+  CwCanalDrawOptions options;
+
+  cw_canal_draw_options_init (&options);
+  options.overlays = self->overlays;
+  options.rules = &cw_document_get_case (self->document)->rules;
+  if (self->playback)
+    options.partial = cw_playback_get_partial (self->playback);
+  cw_canal_draw_full (cr, layout, cw_document_get_result (self->document),
+                      cw_document_get_step_index (self->document), &options);
+}
+
+static char *
+hud_text (CwCanalView *self)
+{
+  const CwStepResult *r = cw_playback_get_figures (self->playback);
+  const CwStepResult *planned = cw_canal_result_get_step (cw_document_get_result (self->document),
+                                                          (guint) cw_playback_get_step_index (self->playback));
+  double factor = cw_playback_get_speed (self->playback);
+  g_autofree char *speed = cw_render_number (factor, factor == floor (factor) ? 0 : 2);
+  g_autofree char *tip = cw_render_number (r->depth, 1), *depth = cw_render_number (planned->depth, 1);
+  g_autofree char *engaged = cw_render_number (r->engaged_length, 1);
+  g_autofree char *curve = cw_render_number (r->engaged_in_curve, 1);
+  g_autofree char *number = cw_render_number (r->strain * 100, 1);
+  g_autofree char *strain = isfinite (r->strain) ? g_strdup_printf (_("%s %%"), number) : g_strdup ("–");
+  g_autofree char *pecks = planned->pecks == 0
+    ? g_strdup (_("it touches no wall"))
+    : g_strdup_printf (_("peck %u of %u"), MIN (cw_playback_get_pecks (self->playback) + 1, planned->pecks),
+                       planned->pecks);
+
+  /* TRANSLATORS: playing or paused, speed, tip depth, planned depth, pecks,
+   * engaged length, of it in the curve, strain */
+  return g_strdup_printf (_("%s ×%s · tip %s of %s mm · %s\nengaged %s mm, %s in the curve · strain %s"),
+                          cw_playback_get_playing (self->playback) ? _("Playing") : _("Paused"), speed, tip, depth,
+                          pecks, engaged, curve, strain);
+}
+
+/* While a file goes in, its figures there in the top left corner. */
+static void
+draw_playback_hud (CwCanalView   *self,
+                   cairo_t       *cr,
+                   CwRenderStyle *style)
+{
+  g_autoptr(PangoLayout) text = NULL;
+  g_autofree char *line = NULL;
+  double w, h, pad = cw_render_style_font (style, 5);
+
+  if (self->playback == NULL || cw_playback_get_phase (self->playback) != CW_PLAYBACK_INSERTING
+      || cw_playback_get_figures (self->playback) == NULL)
+    return;
+  line = hud_text (self);
+  text = cw_render_text_layout (style, 8, CW_TEXT_BOLD, line);
+  cw_render_text_size (text, &w, &h);
+  cw_render_set_rgba (cr, &cw_render_style_palette (style)->background, 0.9);
+  cairo_rectangle (cr, pad / 2, pad / 2, w + pad * 2, h + pad);
+  cairo_fill (cr);
+  cw_render_set_rgb (cr, &cw_render_style_palette (style)->ink);
+  cw_render_text_draw (cr, text, pad * 1.5, pad, CW_ALIGN_START, CW_ALIGN_START);
+}
+
+static void
 cw_canal_view_snapshot (GtkWidget   *widget,
                         GtkSnapshot *snapshot)
 {
@@ -119,10 +189,12 @@ cw_canal_view_snapshot (GtkWidget   *widget,
   cr = gtk_snapshot_append_cairo (snapshot, &bounds);
   cw_render_set_rgb (cr, &cw_render_style_palette (&style)->background);
   cairo_paint (cr);
+  cairo_save (cr);
   view_transform (self, &m);
   cairo_transform (cr, &m);
-  cw_canal_draw (cr, layout, cw_document_get_result (self->document),
-                 cw_document_get_step_index (self->document));
+  draw_canal (self, cr, layout);
+  cairo_restore (cr);
+  draw_playback_hud (self, cr, &style);
   cairo_destroy (cr);
 }
 
@@ -343,11 +415,46 @@ cw_canal_view_set_document (CwCanalView *self,
   document_changed (self);
 }
 
+void
+cw_canal_view_set_overlays (CwCanalView    *self,
+                            CwOverlayFlags  overlays)
+{
+  g_return_if_fail (CW_IS_CANAL_VIEW (self));
+
+  if (overlays == self->overlays)
+    return;
+  self->overlays = overlays;
+  invalidate_layout (self);
+  gtk_widget_queue_draw (GTK_WIDGET (self));
+}
+
+CwOverlayFlags
+cw_canal_view_get_overlays (CwCanalView *self)
+{
+  g_return_val_if_fail (CW_IS_CANAL_VIEW (self), CW_OVERLAY_NONE);
+  return self->overlays;
+}
+
+void
+cw_canal_view_set_playback (CwCanalView *self,
+                            CwPlayback  *playback)
+{
+  g_return_if_fail (CW_IS_CANAL_VIEW (self));
+
+  if (self->playback)
+    g_signal_handlers_disconnect_by_data (self->playback, self);
+  g_set_object (&self->playback, playback);
+  if (playback)
+    g_signal_connect_object (playback, "changed", G_CALLBACK (gtk_widget_queue_draw), self, G_CONNECT_SWAPPED);
+  gtk_widget_queue_draw (GTK_WIDGET (self));
+}
+
 static void
 cw_canal_view_dispose (GObject *object)
 {
   CwCanalView *self = CW_CANAL_VIEW (object);
 
+  g_clear_object (&self->playback);
   g_clear_object (&self->document);
   invalidate_layout (self);
   G_OBJECT_CLASS (cw_canal_view_parent_class)->dispose (object);
@@ -374,6 +481,13 @@ cw_canal_view_class_init (CwCanalViewClass *klass)
   gtk_widget_class_add_binding_action (widget_class, GDK_KEY_Right, 0, "win.next-step", NULL);
   gtk_widget_class_add_binding_action (widget_class, GDK_KEY_Left, 0, "win.previous-step", NULL);
   gtk_widget_class_add_binding_action (widget_class, GDK_KEY_Delete, 0, "win.remove-step", NULL);
+  /* Playback (cw-window-teaching.c); Left and Right above step it too. */
+  gtk_widget_class_add_binding_action (widget_class, GDK_KEY_space, 0, "win.play-pause", NULL);
+  gtk_widget_class_add_binding_action (widget_class, GDK_KEY_KP_Space, 0, "win.play-pause", NULL);
+  gtk_widget_class_add_binding_action (widget_class, GDK_KEY_Home, 0, "win.first-step", NULL);
+  gtk_widget_class_add_binding_action (widget_class, GDK_KEY_KP_Home, 0, "win.first-step", NULL);
+  gtk_widget_class_add_binding_action (widget_class, GDK_KEY_End, 0, "win.last-step", NULL);
+  gtk_widget_class_add_binding_action (widget_class, GDK_KEY_KP_End, 0, "win.last-step", NULL);
 }
 
 static void

@@ -7,7 +7,9 @@
 
 #include <gtk/gtk.h>
 
+#include "cw-canal-overlays.h"
 #include "cw-document.h"
+#include "cw-playback.h"
 
 G_BEGIN_DECLS
 
@@ -24,5 +26,13 @@ gboolean cw_canal_view_depth_point   (CwCanalView *self,
                                       double       depth,
                                       double      *x,
                                       double      *y);
+
+/* Teaching: the overlays drawn, and the playback whose file going in is
+ * drawn in place of the selected step. */
+void           cw_canal_view_set_overlays (CwCanalView    *self,
+                                           CwOverlayFlags  overlays);
+CwOverlayFlags cw_canal_view_get_overlays (CwCanalView    *self);
+void           cw_canal_view_set_playback (CwCanalView    *self,
+                                           CwPlayback     *playback);
 
 G_END_DECLS

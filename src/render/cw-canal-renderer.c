@@ -8,6 +8,7 @@
 #include <math.h>
 
 #include "cw-canal-layout-private.h"
+#include "cw-canal-overlays-private.h"
 #include "cw-canal-renderer.h"
 
 const CwPwl *
@@ -112,15 +113,25 @@ draw_background (cairo_t             *cr,
 }
 
 void
-cw_canal_draw (cairo_t             *cr,
-               const CwCanalLayout *layout,
-               const CwCanalResult *result,
-               int                  step)
+cw_canal_draw_options_init (CwCanalDrawOptions *options)
+{
+  g_return_if_fail (options != NULL);
+
+  options->overlays = CW_OVERLAY_NONE;
+  options->partial = NULL;
+  options->rules = NULL;
+  options->hide_notes = FALSE;
+}
+
+static void
+draw_step (cairo_t                  *cr,
+           const CwCanalLayout      *layout,
+           const CwCanalResult      *result,
+           int                       step,
+           const CwCanalDrawOptions *options)
 {
   const CwStepResult *r = NULL;
   const CwPwl *walls;
-
-  g_return_if_fail (cr != NULL && layout != NULL && result != NULL);
 
   if (step >= 0 && (guint) step < result->steps->len)
     r = cw_canal_result_get_step (result, step);
@@ -134,11 +145,57 @@ cw_canal_draw (cairo_t             *cr,
     cw_canal_file_draw (cr, layout, r);
   draw_walls (cr, layout, walls);
   cw_canal_marks_draw (cr, layout, walls);
-  if (r)
+  /* The ceiling overlay draws this line with more around it. */
+  if (r && !(options->overlays & CW_OVERLAY_CEILING))
     cw_canal_ceiling_draw (cr, layout, r, walls);
   if (layout->flags & CW_CANAL_LAYOUT_SCALE)
     cw_canal_scale_bar_draw (cr, layout);
   if (layout->flags & CW_CANAL_LAYOUT_LEGEND)
     cw_canal_legend_draw (cr, layout, result, r ? step : CW_RENDER_NO_STEP);
   cairo_restore (cr);
+  /* Not clipped to the layout's area: their labels may take the room
+   * cw_canal_overlays_room () asked the caller to leave beside it. */
+  cw_canal_overlays_draw (cr, layout, result, r ? step : CW_RENDER_NO_STEP, options);
+}
+
+void
+cw_canal_draw_full (cairo_t                  *cr,
+                    const CwCanalLayout      *layout,
+                    const CwCanalResult      *result,
+                    int                       step,
+                    const CwCanalDrawOptions *options)
+{
+  CwCanalDrawOptions defaults;
+  g_autoptr(GPtrArray) steps = NULL;
+  CwCanalResult shown;
+
+  g_return_if_fail (cr != NULL && layout != NULL && result != NULL);
+
+  if (options == NULL)
+    {
+      cw_canal_draw_options_init (&defaults);
+      options = &defaults;
+    }
+  if (options->partial == NULL || step < 0 || (guint) step >= result->steps->len)
+    {
+      draw_step (cr, layout, result, step, options);
+      return;
+    }
+  /* The same result with the step at its partial depth: every part of the
+   * drawing, the legend too, then shows the figures there. */
+  shown = *result;
+  steps = g_ptr_array_copy (result->steps, NULL, NULL);
+  g_ptr_array_set_free_func (steps, NULL);
+  g_ptr_array_index (steps, step) = (gpointer) options->partial;
+  shown.steps = steps;
+  draw_step (cr, layout, &shown, step, options);
+}
+
+void
+cw_canal_draw (cairo_t             *cr,
+               const CwCanalLayout *layout,
+               const CwCanalResult *result,
+               int                  step)
+{
+  cw_canal_draw_full (cr, layout, result, step, NULL);
 }
