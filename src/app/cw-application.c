@@ -280,6 +280,7 @@ set_accels (GtkApplication *app)
     { "win.export", { "<Control>e", NULL } },
     { "win.print", { "<Control>p", NULL } },
     { "win.propose", { "<Control>r", NULL } },
+    { "win.show-library", { "<Control>l", NULL } },
     { "win.undo", { "<Control>z", NULL } },
     { "win.redo", { "<Shift><Control>z", "<Control>y", NULL } },
     { "win.add-canal", { "<Shift><Control>n", NULL } },
@@ -293,6 +294,8 @@ set_accels (GtkApplication *app)
     { "win.focus-canal", { "<Control>3", NULL } },
     { "win.edit-canal", { "<Control>4", NULL } },
     { "win.show-help-overlay", { "<Control>question", NULL } },
+    { "win.presenter", { "F5", NULL } },
+    { "win.export-view", { "<Shift><Control>e", NULL } },
   };
 
   for (guint i = 0; i < G_N_ELEMENTS (accels); i++)

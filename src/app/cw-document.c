@@ -15,6 +15,7 @@
 
 #include "cw-case-loader.h"
 #include "cw-case-writer.h"
+#include "cw-error.h"
 #include "cw-document.h"
 
 #define HISTORY_MAX 200
@@ -207,6 +208,13 @@ cw_document_open (GFile   *file,
 
   g_return_val_if_fail (G_IS_FILE (file), NULL);
 
+  if (path == NULL)
+    {
+      g_autofree char *uri = g_file_get_uri (file);
+
+      g_set_error (error, CW_ERROR, CW_ERROR_READ, _("%s: only cases on this computer's disks can be opened"), uri);
+      return NULL;
+    }
   kase = cw_case_load (path, error);
   if (kase == NULL)
     return NULL;

@@ -11,6 +11,7 @@
 #include <math.h>
 
 #include "cw-iso.h"
+#include "cw-render-text.h"
 #include "cw-shelf.h"
 #include "cw-swatch.h"
 
@@ -19,6 +20,7 @@ struct _CwShelf
   GtkWidget    parent_instance;
 
   CwDocument  *document;
+  CwLibraries *libraries;
   GtkWidget   *box;
   GtkListBox  *list;
   GtkDropDown *taper_filter;
@@ -27,8 +29,8 @@ struct _CwShelf
 
 G_DEFINE_FINAL_TYPE (CwShelf, cw_shelf, GTK_TYPE_WIDGET)
 
-static const char *
-alloy_label (CwAlloy alloy)
+const char *
+cw_alloy_label (CwAlloy alloy)
 {
   switch (alloy)
     {
@@ -39,8 +41,8 @@ alloy_label (CwAlloy alloy)
     }
 }
 
-static const char *
-motion_label (CwMotion motion)
+const char *
+cw_motion_label (CwMotion motion)
 {
   switch (motion)
     {
@@ -61,8 +63,8 @@ cw_instrument_describe (const CwInstrument *inst)
     taper = g_strdup_printf (_("%.0f/var. %.2f"), inst->tip, cw_instrument_nominal_taper (inst));
   else
     taper = g_strdup_printf ("%.0f/%.2f", inst->tip, inst->taper);
-  return g_strdup_printf (_("%s · %s · %s · %.0f mm"), taper, alloy_label (inst->alloy),
-                          motion_label (inst->motion), inst->length);
+  return g_strdup_printf (_("%s · %s · %s · %.0f mm"), taper, cw_alloy_label (inst->alloy),
+                          cw_motion_label (inst->motion), inst->length);
 }
 
 static gboolean
@@ -107,8 +109,37 @@ drag_begin (GtkDragSource *source,
   gtk_drag_source_set_icon (source, icon, 0, 0);
 }
 
+/* The case keeps its own copy; this says when the library's has changed
+ * since, or never matched. */
+static gboolean
+differs_from_library (CwShelf            *self,
+                      const CwInstrument *inst)
+{
+  const CwInstrument *kept;
+
+  if (self->libraries == NULL)
+    return FALSE;
+  kept = cw_library_lookup (cw_libraries_get_current (self->libraries), inst->id);
+  return kept != NULL && !cw_instrument_equal (kept, inst);
+}
+
 static GtkWidget *
-make_row (const CwInstrument *inst)
+difference_mark (void)
+{
+  GtkWidget *mark = gtk_image_new_from_icon_name ("document-edit-symbolic");
+
+  gtk_widget_set_name (mark, "differs");
+  gtk_widget_set_valign (mark, GTK_ALIGN_CENTER);
+  gtk_widget_add_css_class (mark, "warning");
+  gtk_widget_set_tooltip_text (mark, _("Differs from the library"));
+  gtk_accessible_update_property (GTK_ACCESSIBLE (mark), GTK_ACCESSIBLE_PROPERTY_LABEL,
+                                  _("Differs from the library"), -1);
+  return mark;
+}
+
+static GtkWidget *
+make_row (CwShelf            *self,
+          const CwInstrument *inst)
 {
   GtkWidget *row = gtk_list_box_row_new ();
   GtkWidget *box = gtk_box_new (GTK_ORIENTATION_HORIZONTAL, 8);
@@ -117,7 +148,9 @@ make_row (const CwInstrument *inst)
   g_autofree char *detail = cw_instrument_describe (inst);
   GtkWidget *sub = gtk_label_new (detail);
   GtkDragSource *source = gtk_drag_source_new ();
-  g_autofree char *a11y = g_strdup_printf ("%s, %s", inst->label ? inst->label : inst->id, detail);
+  gboolean differs = differs_from_library (self, inst);
+  g_autofree char *a11y = g_strdup_printf (differs ? _("%s, %s, differs from the library") : "%s, %s",
+                                           inst->label ? inst->label : inst->id, detail);
 
   gtk_label_set_xalign (GTK_LABEL (title), 0);
   gtk_label_set_ellipsize (GTK_LABEL (title), PANGO_ELLIPSIZE_END);
@@ -129,6 +162,9 @@ make_row (const CwInstrument *inst)
   gtk_box_append (GTK_BOX (text), sub);
   gtk_box_append (GTK_BOX (box), cw_swatch_new (inst->tip));
   gtk_box_append (GTK_BOX (box), text);
+  gtk_widget_set_hexpand (text, TRUE);
+  if (differs)
+    gtk_box_append (GTK_BOX (box), difference_mark ());
   gtk_list_box_row_set_child (GTK_LIST_BOX_ROW (row), box);
   g_object_set_data_full (G_OBJECT (row), "id", g_strdup (inst->id), g_free);
   gtk_widget_set_tooltip_text (row, detail);
@@ -162,7 +198,7 @@ rebuild (CwShelf *self)
 
       if (!passes_filter (self, inst))
         continue;
-      row = make_row (inst);
+      row = make_row (self, inst);
       gtk_list_box_append (self->list, row);
       if (g_strcmp0 (selected, inst->id) == 0)
         gtk_list_box_select_row (self->list, GTK_LIST_BOX_ROW (row));
@@ -200,6 +236,21 @@ cw_shelf_set_document (CwShelf    *self,
 }
 
 void
+cw_shelf_set_libraries (CwShelf     *self,
+                        CwLibraries *libraries)
+{
+  g_return_if_fail (CW_IS_SHELF (self));
+  g_return_if_fail (libraries == NULL || CW_IS_LIBRARIES (libraries));
+
+  if (self->libraries)
+    g_signal_handlers_disconnect_by_func (self->libraries, rebuild, self);
+  g_set_object (&self->libraries, libraries);
+  if (libraries)
+    g_signal_connect_object (libraries, "changed", G_CALLBACK (rebuild), self, G_CONNECT_SWAPPED);
+  rebuild (self);
+}
+
+void
 cw_shelf_grab_focus (CwShelf *self)
 {
   GtkListBoxRow *row = gtk_list_box_get_selected_row (self->list);
@@ -216,6 +267,7 @@ cw_shelf_dispose (GObject *object)
   CwShelf *self = CW_SHELF (object);
 
   g_clear_object (&self->document);
+  g_clear_object (&self->libraries);
   gtk_widget_dispose_template (GTK_WIDGET (self), CW_TYPE_SHELF);
   G_OBJECT_CLASS (cw_shelf_parent_class)->dispose (object);
 }
@@ -236,10 +288,24 @@ cw_shelf_class_init (CwShelfClass *klass)
   gtk_widget_class_bind_template_child (widget_class, CwShelf, motion_filter);
 }
 
+static GtkWidget *
+empty_placeholder (void)
+{
+  GtkWidget *label = gtk_label_new (_("No instruments in this case yet: add them from the library."));
+
+  gtk_label_set_wrap (GTK_LABEL (label), TRUE);
+  gtk_widget_set_margin_top (label, 12);
+  gtk_widget_set_margin_start (label, 6);
+  gtk_widget_set_margin_end (label, 6);
+  gtk_widget_add_css_class (label, "dim-label");
+  return label;
+}
+
 static void
 cw_shelf_init (CwShelf *self)
 {
   gtk_widget_init_template (GTK_WIDGET (self));
+  gtk_list_box_set_placeholder (self->list, empty_placeholder ());
   g_signal_connect (self->list, "row-selected", G_CALLBACK (row_selected), self);
   g_signal_connect (self->list, "row-activated", G_CALLBACK (row_activated), self);
   g_signal_connect_swapped (self->taper_filter, "notify::selected", G_CALLBACK (rebuild), self);

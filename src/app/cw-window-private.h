@@ -39,6 +39,15 @@ struct _CwWindow
 
 void _cw_window_install_actions (GtkWidgetClass *widget_class);
 void _cw_window_install_export_actions (GtkWidgetClass *widget_class);
+void _cw_window_install_teaching_actions (GtkWidgetClass *klass);
+void _cw_window_setup_teaching  (CwWindow       *self);
+CwPlayback *_cw_window_get_playback (CwWindow   *self);
+gboolean _cw_window_export_frames (CwWindow       *self,
+                                   const char     *dir,
+                                   guint           frames_per_step,
+                                   GError        **error);
+void _cw_window_install_library_actions (GtkWidgetClass *klass);
+void _cw_window_setup_library   (CwWindow       *self);
 void _cw_window_install_plan_actions   (GtkWidgetClass *widget_class);
 gboolean _cw_window_print_to_file (CwWindow       *self,
                                    const char     *path,

@@ -347,6 +347,8 @@ cw_window_class_init (CwWindowClass *klass)
 
   _cw_window_install_actions (widget_class);
   _cw_window_install_export_actions (widget_class);
+  _cw_window_install_teaching_actions (widget_class);
+  _cw_window_install_library_actions (widget_class);
   _cw_window_install_plan_actions (widget_class);
 }
 
@@ -354,4 +356,6 @@ static void
 cw_window_init (CwWindow *self)
 {
   gtk_widget_init_template (GTK_WIDGET (self));
+  _cw_window_setup_library (self);
+  _cw_window_setup_teaching (self);
 }
