@@ -753,7 +753,7 @@ cw_case_load (const char  *path,
   g_return_val_if_fail (path != NULL, NULL);
   g_return_val_if_fail (error == NULL || *error == NULL, NULL);
 
-  file = g_path_get_basename (path);
+  file = g_filename_display_basename (path);
   data = cw_json_read_file (file, path, &length, error);
   if (data == NULL)
     return NULL;
@@ -776,7 +776,7 @@ cw_rules_load (const char  *path,
   g_return_val_if_fail (rules != NULL, FALSE);
   g_return_val_if_fail (error == NULL || *error == NULL, FALSE);
 
-  file = g_path_get_basename (path);
+  file = g_filename_display_basename (path);
   data = cw_json_read_file (file, path, &length, error);
   if (data == NULL)
     return FALSE;

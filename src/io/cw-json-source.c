@@ -1,8 +1,8 @@
 /* cw-json-source.c
  *
  * Reading a file the program did not write: bounded in size, checked for
- * UTF-8 and for nesting before json-glib sees it, then its "format" and
- * "version".  Shared by every loader, so each refuses a hostile file the
+ * UTF-8 and against the strict JSON grammar before json-glib sees it, then
+ * its "format" and "version".  Shared by every loader, so each refuses a hostile file the
  * same way and with the same words.
  *
  * Copyright 2026 The Canalwright authors
@@ -22,6 +22,7 @@
 #include "cw-case-loader.h"
 #include "cw-json-check.h"
 #include "cw-json-source.h"
+#include "cw-json-strict.h"
 
 static char *
 read_bounded (int     fd,
@@ -104,134 +105,6 @@ cw_json_read_file (const char  *file,
   return g_steal_pointer (&data);
 }
 
-/* The nesting check reads the text the way json-glib 1.6's scanner does,
- * since a bracket it sees and this check missed would let a hostile file
- * recurse the parser off the stack: "..." strings with backslash escapes,
- * where a \u escape also swallows the character that ends its four digits
- * and a lone surrogate the one or two after it; '...' strings without
- * escapes; and text from one slash to the next is a comment.  Where the
- * scanner would give up, so does the check, and the parser reports it. */
-typedef struct
-{
-  const guchar *p;
-  const guchar *end;
-} Cursor;
-
-static guchar
-next_char (Cursor *c)
-{
-  return c->p < c->end ? *c->p++ : 0;
-}
-
-static guchar
-peek_char (Cursor *c)
-{
-  return c->p < c->end ? *c->p : 0;
-}
-
-static gunichar
-next_hex4 (Cursor *c)
-{
-  gunichar value = 0;
-
-  for (int i = 0; i < 4; i++)
-    {
-      guchar ch = next_char (c);
-
-      if (!g_ascii_isxdigit (ch))
-        break;
-      value += (gunichar) g_ascii_xdigit_value (ch) << ((3 - i) * 4);
-    }
-  return value;
-}
-
-static gboolean
-skip_escape (Cursor *c)
-{
-  gunichar first, second;
-
-  if (next_char (c) != 'u' || !g_ascii_isxdigit (peek_char (c)))
-    return TRUE;
-  first = next_hex4 (c);
-  if (first < 0xd800 || first > 0xdfff)
-    return TRUE;
-  if (next_char (c) != '\\' || next_char (c) != 'u')
-    return TRUE;
-  second = next_hex4 (c);
-  return first <= 0xdbff && second >= 0xdc00 && second <= 0xdfff;
-}
-
-static gboolean
-skip_dq_string (Cursor *c)
-{
-  for (;;)
-    {
-      guchar ch = next_char (c);
-
-      if (ch == 0)
-        return FALSE;
-      if (ch == '"')
-        return TRUE;
-      if (ch == '\\' && !skip_escape (c))
-        return FALSE;
-    }
-}
-
-static gboolean
-skip_past (Cursor *c,
-           guchar  delimiter)
-{
-  const guchar *found = memchr (c->p, delimiter, (gsize) (c->end - c->p));
-
-  if (found == NULL)
-    return FALSE;
-  c->p = found + 1;
-  return TRUE;
-}
-
-typedef enum
-{
-  SCAN_OK,
-  SCAN_TOO_DEEP,
-  SCAN_SECOND_VALUE,
-} ScanResult;
-
-/* The parser takes "{...} {...}" and keeps only the last object, so a
- * second top-level bracket is refused here too.  OFFSET is where. */
-static ScanResult
-scan_brackets (const char *data,
-               gsize       length,
-               gsize      *offset)
-{
-  Cursor c = { (const guchar *) data, (const guchar *) data + length };
-  gboolean go_on = TRUE, closed = FALSE;
-  guint depth = 0;
-
-  while (go_on && c.p < c.end)
-    {
-      guchar ch = next_char (&c);
-
-      *offset = (gsize) (c.p - 1 - (const guchar *) data);
-      if ((ch == '[' || ch == '{') && depth == 0 && closed)
-        return SCAN_SECOND_VALUE;
-      if (ch == '[' || ch == '{')
-        {
-          if (++depth > CW_MAX_NESTING)
-            return SCAN_TOO_DEEP;
-        }
-      else if (ch == ']' || ch == '}')
-        {
-          depth = depth > 0 ? depth - 1 : 0;
-          closed = closed || depth == 0;
-        }
-      else if (ch == '"')
-        go_on = skip_dq_string (&c);
-      else if (ch == '\'' || ch == '/')
-        go_on = skip_past (&c, ch);
-    }
-  return SCAN_OK;
-}
-
 static gboolean
 check_text (const char  *file,
             const char  *data,
@@ -239,7 +112,6 @@ check_text (const char  *file,
             GError     **error)
 {
   const char *end = NULL;
-  gsize offset = 0;
 
   if (length > CW_MAX_FILE_SIZE)
     return cw_json_fail (error, CW_ERROR_TOO_LARGE, file, NULL,
@@ -251,20 +123,9 @@ check_text (const char  *file,
     return cw_json_fail (error, CW_ERROR_SYNTAX, file, NULL,
                          "the file is not UTF-8 text (invalid byte at offset %" G_GSIZE_FORMAT ")",
                          (gsize) (end - data));
-  switch (scan_brackets (data, length, &offset))
-    {
-    case SCAN_TOO_DEEP:
-      return cw_json_fail (error, CW_ERROR_TOO_LARGE, file, NULL,
-                           "arrays and objects are nested deeper than %d levels (at byte offset %" G_GSIZE_FORMAT ")",
-                           CW_MAX_NESTING, offset);
-    case SCAN_SECOND_VALUE:
-      return cw_json_fail (error, CW_ERROR_SYNTAX, file, NULL,
-                           "the file holds more than one JSON value (the second starts at byte offset %" G_GSIZE_FORMAT ")",
-                           offset);
-    case SCAN_OK:
-    default:
-      return TRUE;
-    }
+  /* Strict JSON only, and bounded in depth and in values, before json-glib
+   * (which recurses and is lenient) builds anything. */
+  return cw_json_strict_check (file, data, length, error);
 }
 
 static gboolean
@@ -350,14 +211,14 @@ cw_json_parse_text (const char  *file,
   g_autoptr(JsonParser) parser = NULL;
   g_autoptr(GError) parse_error = NULL;
 
-  if (!check_text (file, data, length, error))
-    return NULL;
   /* Editors on some systems start UTF-8 files with a byte-order mark. */
   if (length >= 3 && memcmp (data, "\xEF\xBB\xBF", 3) == 0)
     {
       data += 3;
       length -= 3;
     }
+  if (!check_text (file, data, length, error))
+    return NULL;
   parser = json_parser_new ();
   if (!json_parser_load_from_data (parser, data, (gssize) length, &parse_error))
     {

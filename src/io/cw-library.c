@@ -64,7 +64,7 @@ cw_library_free (CwLibrary *self)
 static char *
 file_name (const CwLibrary *self)
 {
-  return self->path != NULL ? g_path_get_basename (self->path) : g_strdup ("(library)");
+  return self->path != NULL ? g_filename_display_basename (self->path) : g_strdup ("(library)");
 }
 
 const char *
@@ -135,7 +135,7 @@ cw_library_load (const char  *path,
   g_return_val_if_fail (path != NULL, NULL);
   g_return_val_if_fail (error == NULL || *error == NULL, NULL);
 
-  file = g_path_get_basename (path);
+  file = g_filename_display_basename (path);
   data = cw_json_read_file (file, path, &length, error);
   if (data == NULL)
     return NULL;

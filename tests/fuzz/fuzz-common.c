@@ -53,10 +53,11 @@ known (const char *id)
   return list != NULL && strstr (list, id) != NULL;
 }
 
-/* json-glib 1.6 decodes two escapes that JSON does not have into bytes
- * that need not be UTF-8 (tests/fuzz/README.md, finding 1): a lone
- * surrogate (a backslash, "ud" and anything but its pair) and an octal
- * escape (a backslash and a digit). */
+/* json-glib 1.6 reads escapes that JSON does not have (octal, a \u with
+ * fewer than four hex digits, which also swallows the byte after them, a
+ * lone surrogate) into bytes that need not be UTF-8 (tests/fuzz/README.md,
+ * finding 1).  True when DATA has a backslash followed by anything but one
+ * of "\/bfnrt or u and four hex digits, or a surrogate escape. */
 static gboolean
 has_lenient_escape (const uint8_t *data,
                     size_t         size)
@@ -65,10 +66,19 @@ has_lenient_escape (const uint8_t *data,
     {
       if (data[i] != '\\')
         continue;
-      if (data[i + 1] >= '0' && data[i + 1] <= '7')
+      if (data[i + 1] == 'u')
+        {
+          if (i + 5 >= size || (data[i + 2] | 0x20) == 'd')
+            return TRUE;
+          for (size_t k = 2; k < 6; k++)
+            if (!g_ascii_isxdigit (data[i + k]))
+              return TRUE;
+          i += 5;
+        }
+      else if (strchr ("\"\\/bfnrt", data[i + 1]) == NULL || data[i + 1] == '\0')
         return TRUE;
-      if (i + 2 < size && data[i + 1] == 'u' && (data[i + 2] | 0x20) == 'd')
-        return TRUE;
+      else
+        i++;
     }
   return FALSE;
 }
