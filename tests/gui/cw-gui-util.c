@@ -7,6 +7,7 @@
  * SPDX-License-Identifier: GPL-3.0-or-later
  */
 #include "cw-gui-util.h"
+#include "cw-step-tile.h"
 
 void
 cw_gui_init (int    *argc,
@@ -166,4 +167,39 @@ cw_gui_focus_window (const char *title)
 
   g_assert_true (cw_gui_run (s));
   cw_gui_settle (400);
+}
+
+/* The first widget below root with this name (rows are named after their
+ * instrument's id). */
+GtkWidget *
+cw_gui_find_named (GtkWidget  *root,
+                   const char *name)
+{
+  if (g_strcmp0 (gtk_widget_get_name (root), name) == 0)
+    return root;
+  for (GtkWidget *c = gtk_widget_get_first_child (root); c; c = gtk_widget_get_next_sibling (c))
+    {
+      GtkWidget *found = cw_gui_find_named (c, name);
+
+      if (found)
+        return found;
+    }
+  return NULL;
+}
+
+/* The sequence strip's tile of step index (0-based). */
+GtkWidget *
+cw_gui_find_tile (GtkWidget *root,
+                  guint      index)
+{
+  if (CW_IS_STEP_TILE (root) && cw_step_tile_get_index (CW_STEP_TILE (root)) == index)
+    return root;
+  for (GtkWidget *c = gtk_widget_get_first_child (root); c; c = gtk_widget_get_next_sibling (c))
+    {
+      GtkWidget *found = cw_gui_find_tile (c, index);
+
+      if (found)
+        return found;
+    }
+  return NULL;
 }

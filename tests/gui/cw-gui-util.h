@@ -32,6 +32,10 @@ void     cw_gui_click         (int         x,
                                int         y);
 void     cw_gui_focus_window (const char *title);
 void     cw_gui_key           (const char *keys);
+GtkWidget *cw_gui_find_named   (GtkWidget  *root,
+                                const char *name);
+GtkWidget *cw_gui_find_tile    (GtkWidget  *root,
+                                guint       index);
 char    *cw_gui_screenshot    (const char *name);
 
 G_END_DECLS

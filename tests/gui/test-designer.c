@@ -79,38 +79,6 @@ step_id (Fixture *f,
   return cw_canal_get_step (canal (f), i)->instrument_id;
 }
 
-static GtkWidget *
-find_named (GtkWidget  *root,
-            const char *name)
-{
-  if (g_strcmp0 (gtk_widget_get_name (root), name) == 0)
-    return root;
-  for (GtkWidget *c = gtk_widget_get_first_child (root); c; c = gtk_widget_get_next_sibling (c))
-    {
-      GtkWidget *found = find_named (c, name);
-
-      if (found)
-        return found;
-    }
-  return NULL;
-}
-
-static GtkWidget *
-find_tile (GtkWidget *root,
-           guint      index)
-{
-  if (CW_IS_STEP_TILE (root) && cw_step_tile_get_index (CW_STEP_TILE (root)) == index)
-    return root;
-  for (GtkWidget *c = gtk_widget_get_first_child (root); c; c = gtk_widget_get_next_sibling (c))
-    {
-      GtkWidget *found = find_tile (c, index);
-
-      if (found)
-        return found;
-    }
-  return NULL;
-}
-
 static void
 tile_edge (Fixture *f,
            guint    index,
@@ -118,7 +86,7 @@ tile_edge (Fixture *f,
            int     *x,
            int     *y)
 {
-  GtkWidget *tile = find_tile (GTK_WIDGET (f->window->strip), index);
+  GtkWidget *tile = cw_gui_find_tile (GTK_WIDGET (f->window->strip), index);
 
   g_assert_nonnull (tile);
   cw_gui_screen_point (tile, right ? gtk_widget_get_width (tile) + 3 : -3,
@@ -165,7 +133,7 @@ static void
 test_drag_from_shelf (Fixture       *f,
                       gconstpointer  data)
 {
-  GtkWidget *row = find_named (GTK_WIDGET (f->window->shelf), "k25");
+  GtkWidget *row = cw_gui_find_named (GTK_WIDGET (f->window->shelf), "k25");
   guint n = canal (f)->sequence->len;
   int x0, y0, x1, y1;
 
@@ -188,7 +156,7 @@ test_drag_reorder (Fixture       *f,
 {
   g_autofree char *first = g_strdup (step_id (f, 0));
   g_autofree char *second = g_strdup (step_id (f, 1));
-  GtkWidget *tile = find_tile (GTK_WIDGET (f->window->strip), 0);
+  GtkWidget *tile = cw_gui_find_tile (GTK_WIDGET (f->window->strip), 0);
   int x0, y0, x1, y1;
 
   cw_gui_center (tile, &x0, &y0);
@@ -203,7 +171,7 @@ static void
 test_drag_off (Fixture       *f,
                gconstpointer  data)
 {
-  GtkWidget *tile = find_tile (GTK_WIDGET (f->window->strip), 3);
+  GtkWidget *tile = cw_gui_find_tile (GTK_WIDGET (f->window->strip), 3);
   g_autofree char *after = g_strdup (step_id (f, 4));
   guint n = canal (f)->sequence->len;
   int x0, y0, x1, y1;

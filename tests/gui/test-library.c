@@ -85,46 +85,14 @@ fixture_teardown (Fixture       *f,
 }
 
 static GtkWidget *
-find_named (GtkWidget  *root,
-            const char *name)
-{
-  if (g_strcmp0 (gtk_widget_get_name (root), name) == 0)
-    return root;
-  for (GtkWidget *c = gtk_widget_get_first_child (root); c; c = gtk_widget_get_next_sibling (c))
-    {
-      GtkWidget *found = find_named (c, name);
-
-      if (found)
-        return found;
-    }
-  return NULL;
-}
-
-static GtkWidget *
 named (gpointer    root,
        const char *name)
 {
-  GtkWidget *widget = find_named (GTK_WIDGET (root), name);
+  GtkWidget *widget = cw_gui_find_named (GTK_WIDGET (root), name);
 
   if (widget == NULL)
     g_error ("no widget named %s", name);
   return widget;
-}
-
-static GtkWidget *
-find_tile (GtkWidget *root,
-           guint      index)
-{
-  if (CW_IS_STEP_TILE (root) && cw_step_tile_get_index (CW_STEP_TILE (root)) == index)
-    return root;
-  for (GtkWidget *c = gtk_widget_get_first_child (root); c; c = gtk_widget_get_next_sibling (c))
-    {
-      GtkWidget *found = find_tile (c, index);
-
-      if (found)
-        return found;
-    }
-  return NULL;
 }
 
 /* xdotool's mousemove --sync waits some 15 s for a move that does not
@@ -286,7 +254,7 @@ drag_into_sequence (Fixture    *f,
                     const char *id)
 {
   GtkWidget *row = named (f->window->shelf, id);
-  GtkWidget *tile = find_tile (GTK_WIDGET (f->window->strip), 1);
+  GtkWidget *tile = cw_gui_find_tile (GTK_WIDGET (f->window->strip), 1);
   guint n = cw_document_get_canal (f->document)->sequence->len;
   int x0, y0, x1, y1;
 
@@ -333,7 +301,7 @@ test_create_and_drag (Fixture       *f,
   cw_gui_settle (400);
   drag_into_sequence (f, NEW_ID);
   g_free (cw_gui_screenshot ("library-instrument-in-sequence.png"));
-  g_assert_null (find_named (named (f->window->shelf, NEW_ID), "differs"));
+  g_assert_null (cw_gui_find_named (named (f->window->shelf, NEW_ID), "differs"));
 }
 
 /* Editing the library afterwards leaves the case's copy alone; the shelf
@@ -350,22 +318,22 @@ test_case_keeps_copy (Fixture       *f,
   g_autoptr(GError) error = NULL;
   GtkWidget *mark;
 
-  g_assert_null (find_named (named (f->window->shelf, "k25"), "differs"));
+  g_assert_null (cw_gui_find_named (named (f->window->shelf, "k25"), "differs"));
   longer->length = 31;
   g_assert_true (cw_libraries_put_instrument (libraries, index, g_steal_pointer (&longer), &error));
   g_assert_no_error (error);
   cw_gui_settle (200);
   g_assert_true (cw_instrument_equal (cw_case_find_instrument (cw_document_get_case (f->document), "k25"),
                                       original));
-  mark = find_named (named (f->window->shelf, "k25"), "differs");
+  mark = cw_gui_find_named (named (f->window->shelf, "k25"), "differs");
   g_assert_nonnull (mark);
   g_assert_cmpstr (gtk_widget_get_tooltip_text (mark), ==, "Differs from the library");
-  g_assert_null (find_named (named (f->window->shelf, "k20"), "differs"));
+  g_assert_null (cw_gui_find_named (named (f->window->shelf, "k20"), "differs"));
   g_free (cw_gui_screenshot ("shelf-differs.png"));
 
   g_assert_true (cw_libraries_put_instrument (libraries, index, g_steal_pointer (&original), &error));
   cw_gui_settle (200);
-  g_assert_null (find_named (named (f->window->shelf, "k25"), "differs"));
+  g_assert_null (cw_gui_find_named (named (f->window->shelf, "k25"), "differs"));
 }
 
 /* Libraries, one per surgery: a new one becomes current and the choice is
