@@ -195,6 +195,17 @@ image_stats (const char *path,
 /* F5: the presenter fills the screen in high contrast, with the step's
  * numbers in large black type; its keys drive the same playback and
  * selection; Esc leaves. */
+/* An instrumented build answers keys more slowly: wait, within reason. */
+static void
+wait_for_playing (CwPlayback *playback,
+                  gboolean    playing)
+{
+  gint64 deadline = g_get_monotonic_time () + 3 * G_USEC_PER_SEC;
+
+  while (cw_playback_get_playing (playback) != playing && g_get_monotonic_time () < deadline)
+    cw_gui_settle (50);
+}
+
 static void
 test_presenter (Fixture       *f,
                 gconstpointer  data)
@@ -223,12 +234,14 @@ test_presenter (Fixture       *f,
   cw_gui_key ("Right");
   g_assert_cmpint (cw_document_get_step_index (f->document), ==, 6);
   cw_gui_key ("space");
+  wait_for_playing (playback, TRUE);
   g_assert_true (cw_playback_get_playing (playback));
   cw_gui_key ("plus");
   g_assert_cmpfloat (cw_playback_get_speed (playback), ==, 2);
   cw_gui_settle (400);
   g_free (cw_gui_screenshot ("presenter-playing.png"));
   cw_gui_key ("space Escape");
+  wait_for_playing (playback, FALSE);
   g_assert_false (cw_playback_get_playing (playback));
   g_assert_null (find_toplevel (CW_TYPE_PRESENTER_WINDOW));
 }
